@@ -1,0 +1,50 @@
+/** Request and response shapes of the sign-in and user routes (handbook api.md, "Sign-in"). */
+
+/** The four roles; each may change only what product.md gives it. */
+export type Role = 'admin' | 'designer' | 'stores' | 'purchasing';
+
+/** Every role, in the order screens list them. */
+export const ROLES: readonly Role[] = ['admin', 'designer', 'stores', 'purchasing'];
+
+/** A user as the API shows it (never the hash). */
+export interface User {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  /** Whether the user may sign in; a deactivated user's tokens stop working. */
+  active: boolean;
+}
+
+/** `POST /api/auth/login` body. */
+export interface LoginRequest {
+  email: string;
+  password: string;
+}
+
+/** `POST /api/auth/login` answer. */
+export interface LoginResponse {
+  token: string;
+  user: User;
+}
+
+/** `POST /api/users` body (admin only). */
+export interface CreateUserRequest {
+  email: string;
+  name: string;
+  role: Role;
+  password: string;
+}
+
+/** `PATCH /api/users/:id` body (admin only). */
+export interface UpdateUserRequest {
+  role?: Role;
+  active?: boolean;
+  name?: string;
+}
+
+/** `GET /api/health` answer. */
+export interface HealthResponse {
+  status: 'ok' | 'degraded';
+  database: 'up' | 'down';
+}
