@@ -1,0 +1,91 @@
+/**
+ * `npm test`: starts a throw-away PostgreSQL cluster under tmp/ on 127.0.0.1:54339, runs every suite
+ * (engine, server, Angular unit tests, app build, browser), stops the cluster whatever happens, and
+ * exits non-zero when any suite failed. `npm test -- engine server` runs only the named suites.
+ */
+import { spawnSync } from 'node:child_process';
+import { rmSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { PgCluster } from './pg-cluster.js';
+import { buildAppIfStale } from './app-build.js';
+
+const ROOT = resolve(import.meta.dirname, '..');
+const TEST_PG_PORT = Number(process.env.SHELFMATCH_TEST_PG_PORT ?? 54339);
+
+interface Suite {
+  name: string;
+  run(): number;
+}
+
+const bin = (tool: string) => join(ROOT, 'node_modules/.bin', tool);
+const exec = (cmd: string, args: string[], env: NodeJS.ProcessEnv = {}) =>
+  spawnSync(cmd, args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NG_CLI_ANALYTICS: 'false', ...env } }).status ?? 1;
+
+const SUITES: Suite[] = [
+  { name: 'engine', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.engine.config.ts']) },
+  { name: 'server', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.server.config.ts']) },
+  { name: 'app', run: () => exec(bin('ng'), ['test', '--watch=false']) },
+  {
+    name: 'browser',
+    run: () => {
+      try {
+        buildAppIfStale(ROOT);
+      } catch (error) {
+        console.error(error instanceof Error ? error.message : error);
+        return 1;
+      }
+      return exec(bin('vitest'), ['run', '--config', 'test/vitest.browser.config.ts']);
+    },
+  },
+];
+
+function main(): number {
+  const wanted = process.argv.slice(2);
+  const unknown = wanted.filter((w) => !SUITES.some((s) => s.name === w));
+  if (unknown.length) {
+    console.error(`Unknown suite(s): ${unknown.join(', ')}. Suites: ${SUITES.map((s) => s.name).join(', ')}.`);
+    return 2;
+  }
+  const suites = wanted.length ? SUITES.filter((s) => wanted.includes(s.name)) : SUITES;
+
+  const baseDir = join(ROOT, 'tmp', 'test-postgres');
+  rmSync(baseDir, { recursive: true, force: true });
+  const cluster = new PgCluster({ baseDir, port: TEST_PG_PORT, fast: true });
+  const stop = () => {
+    try {
+      cluster.stop();
+    } catch (error) {
+      console.error(`Could not stop the test database: ${error instanceof Error ? error.message : error}`);
+    }
+  };
+  process.on('SIGINT', () => {
+    stop();
+    process.exit(130);
+  });
+  process.on('SIGTERM', () => {
+    stop();
+    process.exit(143);
+  });
+
+  const results: { name: string; ok: boolean; seconds: number }[] = [];
+  try {
+    cluster.ensureStarted();
+    process.env.TEST_PG_URL = cluster.url('postgres');
+    process.env.TEST_PG_BASE = baseDir;
+    for (const suite of suites) {
+      console.log(`\n=== ${suite.name} ===`);
+      const t0 = Date.now();
+      const status = suite.run();
+      results.push({ name: suite.name, ok: status === 0, seconds: (Date.now() - t0) / 1000 });
+    }
+  } finally {
+    stop();
+  }
+  console.log('\n=== summary ===');
+  for (const r of results) console.log(`${r.ok ? 'ok    ' : 'FAILED'} ${r.name.padEnd(8)} ${r.seconds.toFixed(1)} s`);
+  const failed = results.filter((r) => !r.ok).length;
+  console.log(`suites: ${results.length - failed} passed, ${failed} failed`);
+  return failed ? 1 : 0;
+}
+
+process.exit(main());

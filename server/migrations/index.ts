@@ -1,0 +1,34 @@
+/**
+ * The migration list, in order. umzug records applied names in `schema_migrations`; a migration is
+ * never edited after it ran: add a new one instead. Seeds have their own table (see seeds/).
+ */
+import { Umzug, SequelizeStorage } from 'umzug';
+import type { QueryInterface, Sequelize } from 'sequelize';
+import * as usersAndAudit from './20261202-0001-users-and-audit.js';
+
+interface MigrationModule {
+  up(params: { context: QueryInterface }): Promise<void>;
+  down(params: { context: QueryInterface }): Promise<void>;
+}
+
+const MIGRATIONS: { name: string; module: MigrationModule }[] = [{ name: '20261202-0001-users-and-audit', module: usersAndAudit }];
+
+/** Builds the migrator for `sequelize`. */
+export function migrator(sequelize: Sequelize) {
+  return new Umzug<QueryInterface>({
+    migrations: MIGRATIONS.map(({ name, module }) => ({
+      name,
+      up: ({ context }: { context: QueryInterface }) => module.up({ context }),
+      down: ({ context }: { context: QueryInterface }) => module.down({ context }),
+    })),
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: undefined,
+  });
+}
+
+/** Applies every pending migration; returns the names applied. */
+export async function migrate(sequelize: Sequelize): Promise<string[]> {
+  const done = await migrator(sequelize).up();
+  return done.map((m) => m.name);
+}

@@ -1,0 +1,12 @@
+/** Binds every model to one Sequelize instance. Models hold schema only; services hold behaviour. */
+import type { Sequelize } from 'sequelize';
+import { User } from './user.js';
+import { AuditEntry } from './audit-entry.js';
+
+export { User, AuditEntry };
+
+/** Initialises all models on `sequelize` (call once per instance, before the first query). */
+export function initModels(sequelize: Sequelize): void {
+  User.initModel(sequelize);
+  AuditEntry.initModel(sequelize);
+}
