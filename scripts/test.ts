@@ -8,8 +8,10 @@ import { rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { PgCluster } from './pg-cluster.js';
 import { buildAppIfStale } from './app-build.js';
+import { findFreePort } from './free-port.js';
 
 const ROOT = resolve(import.meta.dirname, '..');
+/** First port tried for the throw-away cluster; the next free one is taken when it is busy. */
 const TEST_PG_PORT = Number(process.env.SHELFMATCH_TEST_PG_PORT ?? 54339);
 
 interface Suite {
@@ -39,7 +41,7 @@ const SUITES: Suite[] = [
   },
 ];
 
-function main(): number {
+async function main(): Promise<number> {
   const wanted = process.argv.slice(2);
   const unknown = wanted.filter((w) => !SUITES.some((s) => s.name === w));
   if (unknown.length) {
@@ -48,9 +50,10 @@ function main(): number {
   }
   const suites = wanted.length ? SUITES.filter((s) => wanted.includes(s.name)) : SUITES;
 
-  const baseDir = join(ROOT, 'tmp', 'test-postgres');
+  // One folder and port per run, so runs in parallel (two checkouts, helpers) do not collide.
+  const baseDir = join(ROOT, 'tmp', `test-postgres-${process.pid}`);
   rmSync(baseDir, { recursive: true, force: true });
-  const cluster = new PgCluster({ baseDir, port: TEST_PG_PORT, fast: true });
+  const cluster = new PgCluster({ baseDir, port: await findFreePort(TEST_PG_PORT), fast: true });
   const stop = () => {
     try {
       cluster.stop();
@@ -80,6 +83,7 @@ function main(): number {
     }
   } finally {
     stop();
+    rmSync(baseDir, { recursive: true, force: true });
   }
   console.log('\n=== summary ===');
   for (const r of results) console.log(`${r.ok ? 'ok    ' : 'FAILED'} ${r.name.padEnd(8)} ${r.seconds.toFixed(1)} s`);
@@ -88,4 +92,4 @@ function main(): number {
   return failed ? 1 : 0;
 }
 
-process.exit(main());
+main().then((code) => process.exit(code));

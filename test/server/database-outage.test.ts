@@ -11,6 +11,7 @@ import { pino } from 'pino';
 import type { Sequelize } from 'sequelize';
 import type { Express } from 'express';
 import { PgCluster } from '../../scripts/pg-cluster.js';
+import { findFreePort } from '../../scripts/free-port.js';
 import { loadConfig } from '../../server/config.js';
 import { openDatabase } from '../../server/db.js';
 import { initModels } from '../../server/models/index.js';
@@ -28,7 +29,7 @@ let token: string;
 
 beforeAll(async () => {
   rmSync(baseDir, { recursive: true, force: true });
-  cluster = new PgCluster({ baseDir, port: 54349, fast: true });
+  cluster = new PgCluster({ baseDir, port: await findFreePort(54349), fast: true });
   cluster.ensureStarted();
   cluster.ensureDatabase('outage');
   const config = loadConfig({ JWT_SECRET: TEST_JWT_SECRET, DATABASE_URL: cluster.url('outage'), LOG_LEVEL: 'silent' });

@@ -9,13 +9,14 @@ import { loadConfig } from '../../server/config.js';
 import { startServer, type RunningServer } from '../../server/main.js';
 import { seedDemoData } from '../../seeds/index.js';
 import { APP_DIST } from '../../scripts/app-build.js';
+import { findFreePort } from '../../scripts/free-port.js';
 import { adminQuery, testClusterUrl, withDatabase } from './test-database.js';
 import { TEST_JWT_SECRET } from './test-app.js';
 
 const ROOT = resolve(import.meta.dirname, '../..');
-/** Port of the browser suite's server (npm start uses 4300). */
-export const BROWSER_SERVER_PORT = Number(process.env.SHELFMATCH_BROWSER_PORT ?? 4390);
-const DB = 'browser_demo';
+/** First port tried for the browser suite's server (npm start uses 4300). */
+const BROWSER_SERVER_PORT = Number(process.env.SHELFMATCH_BROWSER_PORT ?? 4390);
+const DB = `browser_demo_${process.pid}`;
 
 let running: RunningServer | undefined;
 
@@ -27,7 +28,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const config = loadConfig({
     JWT_SECRET: TEST_JWT_SECRET,
     DATABASE_URL: withDatabase(testClusterUrl(), DB),
-    PORT: String(BROWSER_SERVER_PORT),
+    PORT: String(await findFreePort(BROWSER_SERVER_PORT)),
     LOG_LEVEL: 'warn',
     STATIC_DIR: staticDir,
     LOGIN_RATE_LIMIT: '1000',
