@@ -1,6 +1,6 @@
 /**
  * `npm test`: starts a throw-away PostgreSQL cluster under tmp/ on 127.0.0.1:54339, runs every suite
- * (engine, server, Angular unit tests, app build, browser), stops the cluster whatever happens, and
+ * (type check, engine, server, Angular unit tests, app build, browser), stops the cluster whatever happens, and
  * exits non-zero when any suite failed. `npm test -- engine server` runs only the named suites.
  */
 import { spawnSync } from 'node:child_process';
@@ -24,6 +24,7 @@ const exec = (cmd: string, args: string[], env: NodeJS.ProcessEnv = {}) =>
   spawnSync(cmd, args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NG_CLI_ANALYTICS: 'false', ...env } }).status ?? 1;
 
 const SUITES: Suite[] = [
+  { name: 'types', run: () => exec(bin('tsc'), ['-p', 'tsconfig.server.json']) },
   { name: 'engine', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.engine.config.ts']) },
   { name: 'server', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.server.config.ts']) },
   { name: 'app', run: () => exec(bin('ng'), ['test', '--watch=false']) },

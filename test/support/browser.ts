@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 /**
  * Debian's Chromium through playwright-core, set up as this machine needs (no sandbox as root, no
  * background networking), with a guard that records every request that leaves loopback.
