@@ -5,13 +5,17 @@
 import { Umzug, SequelizeStorage } from 'umzug';
 import type { QueryInterface, Sequelize } from 'sequelize';
 import * as usersAndAudit from './20261202-0001-users-and-audit.js';
+import * as stock from './20261202-0002-stock.js';
 
 interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
   down(params: { context: QueryInterface }): Promise<void>;
 }
 
-const MIGRATIONS: { name: string; module: MigrationModule }[] = [{ name: '20261202-0001-users-and-audit', module: usersAndAudit }];
+const MIGRATIONS: { name: string; module: MigrationModule }[] = [
+  { name: '20261202-0001-users-and-audit', module: usersAndAudit },
+  { name: '20261202-0002-stock', module: stock },
+];
 
 /** Builds the migrator for `sequelize`. */
 export function migrator(sequelize: Sequelize) {

@@ -2,11 +2,18 @@
 import type { Sequelize } from 'sequelize';
 import { User } from './user.js';
 import { AuditEntry } from './audit-entry.js';
+import { Part } from './part.js';
+import { StockImport } from './stock-import.js';
+import { StockImportChange } from './stock-import-change.js';
 
 export { User, AuditEntry };
+export { Part, StockImport, StockImportChange };
 
 /** Initialises all models on `sequelize` (call once per instance, before the first query). */
 export function initModels(sequelize: Sequelize): void {
   User.initModel(sequelize);
   AuditEntry.initModel(sequelize);
+  Part.initModel(sequelize);
+  StockImport.initModel(sequelize);
+  StockImportChange.initModel(sequelize);
 }
