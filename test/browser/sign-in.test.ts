@@ -1,4 +1,5 @@
 /// <reference lib="dom" />
+/// <reference lib="dom.iterable" />
 /**
  * Each demo role signs in in the real browser and sees its own navigation; a wrong password and an
  * unknown e-mail show one and the same message; the built app asks nothing of any host but ours.
