@@ -10,8 +10,8 @@ import { apiErrorDetails, apiErrorMessage } from '../api/api-error-message.js';
 import { isAnnouncedByInterceptor } from '../auth/auth-interceptor.js';
 import { UserDirectory } from './user-directory.js';
 
-/** Shortest first password the form accepts; the server may ask for more and says so. */
-export const MIN_PASSWORD_LENGTH = 8;
+/** Shortest first password the form accepts: the server's rule for `POST /api/users`. */
+export const MIN_PASSWORD_LENGTH = 10;
 
 /** Form fields the server may name in `details[].field`. */
 type NewUserField = 'email' | 'name' | 'role' | 'password';

@@ -43,8 +43,12 @@ export const authInterceptor: HttpInterceptorFn = (request, next) => {
               duration: NOTICE_DURATION_MS,
             });
           }
-          const returnUrl = router.url.startsWith('/sign-in') ? undefined : router.url;
-          void router.navigate(['/sign-in'], { queryParams: returnUrl ? { returnUrl } : {} });
+          // Before the first navigation (a stored session checked at start-up) the guards send
+          // the initial navigation to sign-in themselves, with the right page to return to.
+          if (router.navigated) {
+            const returnUrl = router.url.startsWith('/sign-in') ? undefined : router.url;
+            void router.navigate(['/sign-in'], { queryParams: returnUrl ? { returnUrl } : {} });
+          }
         } else if (error.status === 403) {
           snackBar.open(
             apiErrorMessage(error, 'Your role may not do that.'),

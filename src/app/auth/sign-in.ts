@@ -1,6 +1,6 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
-import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, inject, input, signal, viewChild } from '@angular/core';
+import { FormGroupDirective, NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -36,6 +36,7 @@ export class SignIn {
 
   private readonly session = inject(AuthSession);
   private readonly router = inject(Router);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     email: ['', [Validators.required, Validators.email]],
@@ -67,7 +68,8 @@ export class SignIn {
       await this.router.navigateByUrl(mayReturnTo(user.role, wanted) ? wanted : homeUrlFor(user.role));
     } catch (error: unknown) {
       this.errorMessage.set(signInFailureMessage(error));
-      this.form.controls.password.reset();
+      // Clear the password and the submitted state, so "Enter your password" does not show too.
+      this.formDirective().resetForm({ email: this.form.controls.email.value, password: '' });
     } finally {
       this.pending.set(false);
     }

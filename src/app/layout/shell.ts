@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, ElementRef, computed, inject, viewC
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
+import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 
@@ -27,6 +28,7 @@ import { areasFor } from '../auth/role-access.js';
 export class Shell {
   private readonly session = inject(AuthSession);
   private readonly router = inject(Router);
+  private readonly snackBar = inject(MatSnackBar);
 
   protected readonly user = this.session.currentUser;
   /** The areas the signed-in role may open, in navigation order. */
@@ -45,6 +47,7 @@ export class Shell {
 
   protected async signOut(): Promise<void> {
     this.session.signOut();
+    this.snackBar.dismiss();
     await this.router.navigateByUrl('/sign-in');
   }
 }
