@@ -95,8 +95,8 @@ export function isStandardValue(valueSi: number, name: ESeriesName, relativeTole
 }
 
 /**
- * The series value nearest to `valueSi` by log distance `|ln(v / s)|` (so 4.0 between 3.3 and 4.7
- * goes to 3.3 in E6 because 4.0/3.3 < 4.7/4.0), searching the neighbouring decades too
+ * The series value nearest to `valueSi` by log distance `|ln(v / s)|` (so 3.9 between 3.3 and 4.7
+ * goes to 3.3 in E6, because 3.9/3.3 < 4.7/3.9), searching the neighbouring decades too
  * (9.7 in E6 gives 10). Source: IEC 60063:2015 tables; log distance because the series is
  * geometric.
  * @param valueSi a value > 0 in any unit (F, H, Ω)

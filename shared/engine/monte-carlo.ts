@@ -49,6 +49,22 @@ export interface YieldResult {
 }
 
 /**
+ * One Monte Carlo draw of every part value into `out`: `nominal + clip(sigma z, ±tol)` with
+ * `sigma = tol/3` and z from `normal` (standard normal), kept above {@link clampValue}'s floor.
+ */
+export function drawToleranceValues(ladder: Ladder, normal: () => number, out: Float64Array): Float64Array {
+  const nominal = ladder.nominalValues;
+  const delta = ladder.toleranceValues;
+  for (let i = 0; i < nominal.length; i++) {
+    let offset = normal() * SIGMA_PER_TOLERANCE * delta[i];
+    if (offset > delta[i]) offset = delta[i];
+    else if (offset < -delta[i]) offset = -delta[i];
+    out[i] = clampValue(nominal[i] + offset, nominal[i]);
+  }
+  return out;
+}
+
+/**
  * Monte Carlo yield at `frequencyHz`: each sample draws every part as
  * `nominal + clip(N(0, tol/3), ±tol)` and counts a pass when `-10 log10 TPG <= budgetDb`.
  * No allocation per sample (one values array, one losses array per call).
@@ -63,19 +79,11 @@ export function monteCarloYield(ladder: Ladder, source: PortModel, load: PortMod
     throw new EngineInputError('budgetDb', options.budgetDb, `budgetDb: ${options.budgetDb} must be a finite loss >= 0 dB`);
   }
   const normal = normalSource(mulberry32(seed));
-  const k = ladder.parts.length;
-  const nominal = ladder.nominalValues;
-  const delta = ladder.toleranceValues;
-  const values = new Float64Array(k);
+  const values = new Float64Array(ladder.parts.length);
   const losses = options.lossesOut ?? new Float64Array(samples);
   let passing = 0;
   for (let s = 0; s < samples; s++) {
-    for (let i = 0; i < k; i++) {
-      let offset = normal() * SIGMA_PER_TOLERANCE * delta[i];
-      if (offset > delta[i]) offset = delta[i];
-      else if (offset < -delta[i]) offset = -delta[i];
-      values[i] = clampValue(nominal[i] + offset, nominal[i]);
-    }
+    drawToleranceValues(ladder, normal, values);
     const loss = lossDb(ladderTpg(ladder, source, load, frequencyHz, values, false));
     losses[s] = loss;
     if (loss <= options.budgetDb) passing++;

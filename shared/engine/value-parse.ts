@@ -104,8 +104,9 @@ function readSuffix(suffix: string): Suffix | null {
   return unit === null ? null : { exponent, unit };
 }
 
+/** The quantity with its article, for messages ("an inductance"). */
 function describe(quantity: Quantity): string {
-  return quantity;
+  return /^[aeiou]/.test(quantity) ? `an ${quantity}` : `a ${quantity}`;
 }
 
 function fail(field: string, value: unknown, quantity: Quantity, reason: string): never {
@@ -146,7 +147,7 @@ export function parseValue(input: unknown, quantity: Quantity, options: ParseVal
   } else if (typeof input === 'string') {
     value = parseValueString(input, quantity, field);
   } else {
-    fail(field, input, quantity, `is not a ${describe(quantity)} (expected a number or a string)`);
+    fail(field, input, quantity, `is not ${describe(quantity)} (expected a number or a string)`);
   }
   checkRange(value, quantity, field, input, options);
   return value;
@@ -164,7 +165,7 @@ function parseValueString(input: string, quantity: Quantity, field: string): num
   }
 
   const general = GENERAL_FORM.exec(text);
-  if (!general) fail(field, input, quantity, `is not a ${describe(quantity)}`);
+  if (!general) fail(field, input, quantity, `is not ${describe(quantity)}`);
   const [, sign, mantissa, exponentText, suffixText] = general;
   const suffix = readSuffix(suffixText.trim());
   if (suffix === null) fail(field, input, quantity, `has an unknown prefix or unit ${quoteValue(suffixText.trim())}`);
@@ -179,7 +180,7 @@ function parseValueString(input: string, quantity: Quantity, field: string): num
 function parseCode(code: RegExpExecArray, quantity: Quantity, field: string, input: string): number {
   const [, integerDigits, letter, fractionDigits, unitText] = code;
   if (letter === 'R' && quantity !== 'resistance') {
-    fail(field, input, quantity, `uses the resistor code letter R, which does not say a ${describe(quantity)} unit`);
+    fail(field, input, quantity, `uses the resistor code letter R, which does not say ${describe(quantity)} unit`);
   }
   const exponent = letter === 'R' ? 0 : SI_PREFIX_EXPONENTS[letter];
   const unit = unitText.trim() === '' ? null : unitQuantity(unitText.trim(), true);
@@ -190,7 +191,7 @@ function parseCode(code: RegExpExecArray, quantity: Quantity, field: string, inp
 
 function checkUnit(suffix: Suffix, suffixText: string, quantity: Quantity, field: string, input: string): void {
   if (suffix.unit !== null && suffix.unit !== quantity) {
-    fail(field, input, quantity, `is a ${describe(suffix.unit)}, not a ${describe(quantity)}`);
+    fail(field, input, quantity, `is ${describe(suffix.unit)}, not ${describe(quantity)}`);
   }
   if (quantity === 'frequency' && suffixText.startsWith('m') && /^mhz$/.test(suffixText)) {
     fail(field, input, quantity, 'is ambiguous: "mhz" reads as millihertz; write "MHz" for megahertz or "mHz" for millihertz');
@@ -202,10 +203,10 @@ function checkRange(value: number, quantity: Quantity, field: string, input: unk
   if (sign === 'positive' && !(value > 0)) fail(field, input, quantity, 'must be greater than zero');
   if (sign === 'non-negative' && !(value >= 0)) fail(field, input, quantity, 'must not be negative');
   if (options.minSi !== undefined && value < options.minSi) {
-    fail(field, input, quantity, `is below the smallest accepted ${describe(quantity)} (${options.minSi} ${UNIT_SYMBOLS[quantity]})`);
+    fail(field, input, quantity, `is below the smallest accepted ${quantity} (${options.minSi} ${UNIT_SYMBOLS[quantity]})`);
   }
   if (options.maxSi !== undefined && value > options.maxSi) {
-    fail(field, input, quantity, `is above the largest accepted ${describe(quantity)} (${options.maxSi} ${UNIT_SYMBOLS[quantity]})`);
+    fail(field, input, quantity, `is above the largest accepted ${quantity} (${options.maxSi} ${UNIT_SYMBOLS[quantity]})`);
   }
 }
 
