@@ -126,7 +126,7 @@ export function fitLosses(
     valueErrorDb: valueError,
     dissipativeDb: nonNegative(total - valueError),
     totalDb: total,
-    worstCaseDb: nonNegative(Math.max(worst.lossDb, total)),
+    worstCaseDb: nonNegative(worst.lossDb),
     bandDb: band ? nonNegative(bandLoss(ladder, source, load, band, bandPoints)) : null,
     tpg,
     worstCorner: worst.corner,

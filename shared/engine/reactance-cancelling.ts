@@ -14,6 +14,9 @@ import { frequencyProblems, portProblems, throwIfProblems } from './port-limits.
 /** A port's reactance is cancelled only when |X| exceeds this share of R (else it is real already). */
 export const REAL_PORT_RELATIVE = 1e-9;
 
+/** The route offers networks of at least this many parts; smaller ones are the closed form's. */
+export const MIN_ROUTE_PARTS = 3;
+
 /** One cancelling step. */
 export interface CancellingStep {
   port: 'source' | 'load';
@@ -76,8 +79,9 @@ function sameElements(a: readonly IdealElement[], b: readonly IdealElement[]): b
 /**
  * Every network of the reactance-cancelling route from `source` to `load` at `frequencyHz`: for each
  * complex port, a series or a shunt cancelling element; then each real-to-real L solution
- * (`Q = sqrt(Rhigh/Rlow - 1)`, shunt across the higher resistance). Empty when both ports are real
- * (the route then is the closed form) or already matched.
+ * (`Q = sqrt(Rhigh/Rlow - 1)`, shunt across the higher resistance). Only networks of three or more
+ * parts are listed; empty when both ports are real (the route then is the closed form) or already
+ * matched.
  * @throws EngineInputError for R <= 0, non-finite or out-of-range input
  */
 export function reactanceCancellingNetworks(source: Complex, load: Complex, frequencyHz: number): CancellingNetwork[] {
@@ -95,6 +99,9 @@ export function reactanceCancellingNetworks(source: Complex, load: Complex, freq
       const sections = inner.alreadyMatched ? [null] : inner.networks;
       for (const section of sections) {
         const parts = [...(s.step ? [s.step.element] : []), ...(section ? section.elements : []), ...(l.step ? [l.step.element] : [])];
+        // Fewer than three parts (resistances already equal after cancelling) adds nothing the
+        // closed form does not already list.
+        if (parts.length < MIN_ROUTE_PARTS) continue;
         const merged = mergeElements(parts, omega);
         const twin = merged.length <= 2 ? closedForm.find((n) => sameElements(n.elements, merged)) : undefined;
         result.push({
