@@ -16,6 +16,8 @@ import { isDatabaseUnavailable } from './db.js';
 import { authRouter } from './routes/auth/auth-router.js';
 import { usersRouter } from './routes/users/users-router.js';
 import { healthRouter } from './routes/health/health-router.js';
+import { invitationsRouter, setPasswordRouter } from './routes/invitations/invitations-router.js';
+import { outboxRouter } from './routes/outbox/outbox-router.js';
 
 /** Builds the app on an open (models initialised, migrated) `sequelize`. */
 export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Logger): express.Express {
@@ -38,12 +40,16 @@ export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Lo
       },
     }),
   );
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  // The set-password page's address carries a link token: keep it out of the request log.
+  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => req.url === '/api/health' || Boolean(req.url?.startsWith('/set-password')) } }));
   app.use('/api', express.json({ limit: '1mb' }));
 
   app.use('/api/health', healthRouter(ctx));
+  app.use('/api/auth', setPasswordRouter(ctx));
   app.use('/api/auth', authRouter(ctx));
+  app.use('/api/users', invitationsRouter(ctx));
   app.use('/api/users', usersRouter(ctx));
+  app.use('/api/outbox', outboxRouter(ctx));
 
   app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `No API route ${req.method} ${req.originalUrl}.`)));
 

@@ -25,6 +25,8 @@ export interface ServerConfig {
   smtp: { host: string; port: number; secure: boolean; user?: string; password?: string; from: string };
   /** Address the app is reached at, for links in e-mails. */
   publicUrl: string;
+  /** How long an e-mailed set-password link works, by purpose, in milliseconds. */
+  accountLinks: { invitationTtlMs: number; passwordResetTtlMs: number };
 }
 
 /** Reads the configuration from `env` (defaults: the embedded mode of `npm start`). */
@@ -54,6 +56,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
       from: env.MAIL_FROM ?? 'Shelfmatch <shelfmatch@tarnwick.example>',
     },
     publicUrl: env.PUBLIC_URL ?? `http://127.0.0.1:${port}`,
+    accountLinks: {
+      invitationTtlMs: intVar(env, 'INVITATION_TTL_HOURS', 7 * 24) * 3_600_000,
+      passwordResetTtlMs: intVar(env, 'PASSWORD_RESET_TTL_MINUTES', 60) * 60_000,
+    },
   };
 }
 

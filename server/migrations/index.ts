@@ -6,6 +6,7 @@ import { Umzug, SequelizeStorage } from 'umzug';
 import type { QueryInterface, Sequelize } from 'sequelize';
 import * as usersAndAudit from './20261202-0001-users-and-audit.js';
 import * as stock from './20261202-0002-stock.js';
+import * as mailAndUserTokens from './20261202-0003-mail-and-user-tokens.js';
 
 interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -15,6 +16,7 @@ interface MigrationModule {
 const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261202-0001-users-and-audit', module: usersAndAudit },
   { name: '20261202-0002-stock', module: stock },
+  { name: '20261202-0003-mail-and-user-tokens', module: mailAndUserTokens },
 ];
 
 /** Builds the migrator for `sequelize`. */

@@ -12,6 +12,7 @@ import { initModels } from '../../server/models/index.js';
 import { createUser } from '../../server/services/users/manage-users.js';
 import { signToken } from '../../server/auth/tokens.js';
 import { createTestDatabase, openTestSequelize } from './test-database.js';
+import { startFakeSmtpServer, type FakeSmtpServer } from '../../server/mail/fake-smtp-server.js';
 
 /** The JWT secret of test apps (tests also forge tokens with other secrets). */
 export const TEST_JWT_SECRET = 'test-secret-0123456789-abcdefghijklmnopqrstuvwxyz';
@@ -22,6 +23,8 @@ export interface TestApp {
   app: Express;
   sequelize: Sequelize;
   config: ServerConfig;
+  /** This file's own fake SMTP server on a free loopback port; the app sends its e-mail there. */
+  mail: FakeSmtpServer;
   /**
    * Another app on the same database with other configuration variables. (Sequelize models are
    * bound to one instance per process, so a test file keeps one database and varies the app.)
@@ -35,6 +38,8 @@ export interface TestApp {
 /** Starts an app on a new database; `env` overrides configuration variables. */
 export async function startTestApp(env: Record<string, string> = {}): Promise<TestApp> {
   const db = await createTestDatabase();
+  const mail = await startFakeSmtpServer({ port: 0 });
+  env = { SMTP_HOST: mail.host, SMTP_PORT: String(mail.port), ...env };
   const config = loadConfig({ JWT_SECRET: TEST_JWT_SECRET, DATABASE_URL: db.url, LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '1000', ...env });
   const sequelize = openTestSequelize(db.url);
   initModels(sequelize);
@@ -44,6 +49,7 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
     app,
     sequelize,
     config,
+    mail,
     appWith(more) {
       const other = loadConfig({ JWT_SECRET: TEST_JWT_SECRET, DATABASE_URL: db.url, LOG_LEVEL: 'silent', LOGIN_RATE_LIMIT: '1000', ...env, ...more });
       return { app: createApp(other, sequelize, pino({ level: 'silent' })), config: other };
@@ -59,6 +65,7 @@ export async function startTestApp(env: Record<string, string> = {}): Promise<Te
       return { id: user.id, email: user.email, token: signToken(user.id, config.jwtSecret, config.tokenTtl) };
     },
     async close() {
+      await mail.close();
       await sequelize.close();
       await db.drop();
     },
