@@ -9,6 +9,7 @@ import { chmodSync, existsSync, mkdirSync, readFileSync, writeFileSync } from 'n
 import { join, resolve } from 'node:path';
 import { PgCluster } from './pg-cluster.js';
 import { APP_DIST, buildAppIfStale } from './app-build.js';
+import type { FakeSmtpServer } from '../server/mail/fake-smtp-server.js';
 
 const ROOT = resolve(import.meta.dirname, '..');
 const LOCAL = join(ROOT, '.local');
@@ -42,8 +43,14 @@ async function main(): Promise<void> {
   const stopCluster = () => {
     if (cluster && startedCluster) cluster.stop();
   };
+  // Without SMTP_HOST, e-mail goes to a local fake SMTP server and stays on this machine.
+  let fakeSmtp: FakeSmtpServer | undefined;
   try {
     buildAppIfStale(ROOT);
+    if (!process.env.SMTP_HOST) {
+      const { startFakeSmtpServer, FAKE_SMTP_DEFAULT_PORT } = await import('../server/mail/fake-smtp-server.js');
+      fakeSmtp = await startFakeSmtpServer({ port: Number(process.env.SMTP_PORT || FAKE_SMTP_DEFAULT_PORT), emlDir: join(LOCAL, 'mail') });
+    }
     const { loadConfig } = await import('../server/config.js');
     const { startServer } = await import('../server/main.js');
     const { prepareData } = await import('./prepare-data.js');
@@ -55,6 +62,10 @@ async function main(): Promise<void> {
       console.log('Demo accounts (password "shelfmatch-demo"):');
       for (const a of accounts) console.log(`  ${a.role.padEnd(10)} ${a.email}`);
     }
+    if (fakeSmtp) {
+      console.log(`E-mail goes to a local fake SMTP server on ${fakeSmtp.host}:${fakeSmtp.port} and stays on this machine:`);
+      console.log('  admins see it under Outbox; each message is also kept in .local/mail/. Set SMTP_HOST to send real mail.');
+    }
     console.log('Press Ctrl-C to stop.\n');
 
     let stopping = false;
@@ -63,6 +74,7 @@ async function main(): Promise<void> {
       stopping = true;
       console.log('\nStopping...');
       await running.close().catch(() => undefined);
+      await fakeSmtp?.close().catch(() => undefined);
       stopCluster();
       process.exit(0);
     };
@@ -70,6 +82,7 @@ async function main(): Promise<void> {
     process.on('SIGTERM', () => void stop());
   } catch (error) {
     console.error(`\nShelfmatch could not start: ${error instanceof Error ? error.message : String(error)}`);
+    await fakeSmtp?.close().catch(() => undefined);
     stopCluster();
     process.exit(1);
   }
