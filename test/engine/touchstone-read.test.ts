@@ -72,8 +72,8 @@ describe('specification Examples 9 (Version 1.0) and 10 (Version 2.0): the same 
   //   200 MHz: 60 (0.927184 - j 0.374607) = 55.6310 - j 22.4764
   //   300 MHz: 53.025 (0.707107 - j 0.707107) = 37.4943 - j 37.4943
   //   400 MHz: 30 (0.469472 - j 0.882948) = 14.0842 - j 26.4884
-  //   500 MHz: 0.75 (0.017452 - j 0.999848) = 0.013089 - j 0.749886
-  const expectedRe = [74.0691, 55.631, 37.4943, 14.0842, 0.013089];
+  //   500 MHz: 0.75 (0.0174524 - j 0.999848) = 0.0130893 - j 0.749886
+  const expectedRe = [74.0691, 55.631, 37.4943, 14.0842, 0.0130893];
   const expectedIm = [-5.17942, -22.4764, -37.4943, -26.4884, -0.749886];
   const v1 = readOnePortTouchstone(fixture('spec-example-9-v1-one-port-z-ma.s1p'));
   const v2 = readOnePortTouchstone(fixture('spec-example-10-v2-one-port-z-ma.ts'));
