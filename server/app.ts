@@ -16,6 +16,8 @@ import { isDatabaseUnavailable } from './db.js';
 import { authRouter } from './routes/auth/auth-router.js';
 import { usersRouter } from './routes/users/users-router.js';
 import { healthRouter } from './routes/health/health-router.js';
+import { stockRouter } from './routes/stock/stock-router.js';
+import { partsRouter } from './routes/parts/parts-router.js';
 import { invitationsRouter, setPasswordRouter } from './routes/invitations/invitations-router.js';
 import { outboxRouter } from './routes/outbox/outbox-router.js';
 
@@ -49,6 +51,8 @@ export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Lo
   app.use('/api/auth', authRouter(ctx));
   app.use('/api/users', invitationsRouter(ctx));
   app.use('/api/users', usersRouter(ctx));
+  app.use('/api/stock', stockRouter(ctx));
+  app.use('/api/parts', partsRouter(ctx));
   app.use('/api/outbox', outboxRouter(ctx));
 
   app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `No API route ${req.method} ${req.originalUrl}.`)));

@@ -202,6 +202,7 @@ describe('properties on random ports', () => {
     fc.assert(
       fc.property(port, port, frequency, (zs, zl, f0) => {
         const solution = solveLNetworks(zs, zl, f0);
+        if (solution.alreadyMatched) return; // within 1e-9 of a conjugate match: nothing to place
         const gl = zl.re / (zl.re ** 2 + zl.im ** 2);
         const gs = zs.re / (zs.re ** 2 + zs.im ** 2);
         const loadInfeasible = solution.infeasible.some((i) => i.placement === 'shunt-at-load');
