@@ -23,7 +23,7 @@ export class StockImport extends Model<InferAttributes<StockImport>, InferCreati
   declare warningCount: number;
   declare locations: string[];
   /** The first rejected rows and warnings (up to a cap; the counts are exact). */
-  declare problems: { rejected: StockFileProblem[]; warnings: StockFileProblem[] };
+  declare problems: { rejected: StockFileProblem[]; warnings: StockFileProblem[]; truncated: boolean };
   declare createdAt: CreationOptional<Date>;
 
   static initModel(sequelize: Sequelize): void {

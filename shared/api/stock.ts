@@ -3,6 +3,7 @@
  * stock-csv.md). Numbers are SI base units: farads, henries, hertz, ohms, volts, amperes. Money is a
  * decimal string (never a float).
  */
+import type { Tolerance } from '../engine/tolerance-codes.js';
 
 /** The two kinds of part Shelfmatch snaps to. */
 export type PartKind = 'capacitor' | 'inductor';
@@ -17,13 +18,11 @@ export type StockImportMode = 'merge' | 'replace';
 export const STOCK_IMPORT_MODES: readonly StockImportMode[] = ['merge', 'replace'];
 
 /**
- * A part's tolerance: `relative` as a fraction of the nominal value (5 % is 0.05), `absolute` in the
- * unit of the value (±0.1 pF is 1e-13 F).
+ * A part's tolerance, in the engine's own shape (shared/engine/tolerance-codes.ts): `relative` as a
+ * fraction of the nominal value (5 % is `{mode: 'relative', fraction: 0.05}`), `absolute` in the
+ * unit of the value (±0.1 pF is `{mode: 'absolute', deltaSi: 1e-13}`).
  */
-export interface Tolerance {
-  kind: 'relative' | 'absolute';
-  value: number;
-}
+export type { Tolerance } from '../engine/tolerance-codes.js';
 
 /** One stocked part as `GET /api/parts` lists it. */
 export interface PartItem {
@@ -102,8 +101,9 @@ export interface PartLocationsResponse {
   items: string[];
 }
 
-/** One located problem in a stock-list file. `line` counts rows as a spreadsheet does: header = 1. */
+/** One located problem in a stock-list file. */
 export interface StockFileProblem {
+  /** The row as a spreadsheet counts it (header = 1); 0 for a note about the stock rather than one row. */
   line: number;
   /** The column as the schema names it (`value`, `q_freq`), or as the file wrote an unknown one. */
   column: string;
@@ -129,6 +129,10 @@ export interface StockImportReport {
   warnings: StockFileProblem[];
   /** The history entry, or null for a dry run. */
   importId: number | null;
+  /** How many data rows were rejected (`rejected` may hold several problems per row). */
+  rejectedRows: number;
+  /** Whether `rejected` or `warnings` lists only the first 1,000 entries. */
+  truncated: boolean;
 }
 
 /** Form fields of `POST /api/stock/imports` besides `file` (all strings, as multipart sends them). */
