@@ -76,7 +76,7 @@ describe('specification Examples 9 (Version 1.0) and 10 (Version 2.0): the same 
   const expectedRe = [74.0691, 55.631, 37.4943, 14.0842, 0.0130893];
   const expectedIm = [-5.17942, -22.4764, -37.4943, -26.4884, -0.749886];
   const v1 = readOnePortTouchstone(fixture('spec-example-9-v1-one-port-z-ma.s1p'));
-  const v2 = readOnePortTouchstone(fixture('spec-example-10-v2-one-port-z-ma.ts'));
+  const v2 = readOnePortTouchstone(fixture('spec-example-10-v2-one-port-z-ma.s1p'));
 
   it('reads five frequencies in MHz as hertz', () => {
     for (const data of [v1, v2]) expect(Array.from(data.frequencyHz)).toEqual([1e8, 2e8, 3e8, 4e8, 5e8]);
@@ -108,7 +108,7 @@ describe('our Y-data files, version 1 (normalised) and version 2.0 (siemens)', (
   // Y = 0.0025 (1 - j) S and Z = 400 / (1 - j) = 200 + j200 ohm. Frequencies 1000 and 2000 kHz.
   // Version 2.0 writes the same Y in siemens (0.005 0.005, 0.0025 -0.0025) with [Reference] 20,
   // which must not matter for Y-data.
-  for (const name of ['own-one-port-y-ri-v1.s1p', 'own-one-port-y-ri-v2.ts']) {
+  for (const name of ['own-one-port-y-ri-v1.s1p', 'own-one-port-y-ri-v2.s1p']) {
     it(`reads ${name} as 100 - j100 and 200 + j200 ohm at 1 and 2 MHz`, () => {
       const data = readOnePortTouchstone(fixture(name));
       expect(data.parameter).toBe('Y');
@@ -181,7 +181,7 @@ describe('two-port files (used to read back what the writer wrote)', () => {
   });
 
   it('specification Example 17 (Version 2.0): 21_12 order, per-port [Reference], noise data skipped', () => {
-    const data = readTwoPortTouchstone(fixture('spec-example-17-v2-two-port-s-ma-noise.ts'));
+    const data = readTwoPortTouchstone(fixture('spec-example-17-v2-two-port-s-ma-noise.s2p'));
     expect(data.version).toBe('2.0');
     expect(data.frequencyUnit).toBe('GHz'); // "#" alone: GHz, S, MA, R 50
     expect(data.format).toBe('MA');
