@@ -26,8 +26,9 @@ export interface SolveInput {
   excludeAboveLimit: boolean | null;
 }
 
-/** Largest fitsPerNetwork and buildQuantity a request may ask for. */
+/** Largest fitsPerNetwork a request may ask for. */
 export const MAX_FITS_PER_NETWORK = 50;
+/** Largest buildQuantity a request may ask for. */
 export const MAX_BUILD_QUANTITY = 1_000_000;
 
 const OBJECTIVES: readonly Objective[] = ['worst-case', 'nominal', 'band'];

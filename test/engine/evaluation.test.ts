@@ -397,3 +397,23 @@ describe('power check', () => {
     expect(() => powerCheck(ladderOf, constantPort({ re: 50, im: 0 }), constantPort({ re: 200, im: 0 }), f0, -1)).toThrow(/powerW/);
   });
 });
+
+describe('bad input to evaluation helpers', () => {
+  const { network, source, load } = snappedFit();
+  it.each<[string, () => unknown, RegExp]>([
+    ['sweep from 0 Hz', () => linearFrequencies(0, 1e9, 11), /outside 1 Hz/],
+    ['sweep to 1e13 Hz', () => logFrequencies(1e6, 1e13, 11), /outside 1 Hz/],
+    ['sweep that runs backwards', () => linearFrequencies(2e9, 1e9, 11), /below startHz/],
+    ['sweep of one point', () => linearFrequencies(1e9, 2e9, 1), /whole number from 2/],
+    ['sweep of NaN points', () => linearFrequencies(1e9, 2e9, Number.NaN), /whole number from 2/],
+    ['band upside down', () => bandLoss(network, source, load, { lowHz: 2e9, highHz: 1e9 }), /below the lower edge/],
+    ['band at infinity', () => bandLoss(network, source, load, { lowHz: 1e9, highHz: Number.POSITIVE_INFINITY }), /not a finite frequency/],
+    ['power NaN', () => powerCheck(network, source, load, 868e6, Number.NaN), /powerW/],
+    ['power 1e300 W', () => powerCheck(network, source, load, 868e6, 1e300), /at most/],
+    ['corners of -1 parts', () => cornerCount(-1), /outside 0/],
+    ['series-equivalent port with R = 0', () => seriesEquivalentPort({ re: 0, im: 5 }, 1e9), /greater than 0 Ω/],
+    ['constant port with R = -50', () => constantPort({ re: -50, im: 0 }), /greater than 0 Ω/],
+  ])('%s', (_label, run, reason) => {
+    expect(run).toThrow(reason);
+  });
+});
