@@ -2,15 +2,15 @@
  * Touchstone reader for one-port and two-port files, version 1 syntax (an option line and data)
  * and version 2.0 syntax (keywords), after the Touchstone File Format Specification Version 2.0,
  * IBIS Open Forum, ratified 24 April 2009 (called "the specification" below; section names are its
- * own). `[Version] 2.1` files are read by the same rules, since what 2.1 adds beyond 2.0 is not
- * used by one- and two-port single-ended data.
+ * own). `[Version] 2.1` files are read by the same 2.0 rules (not checked against the 2.1
+ * document beyond its per-port `R` on the option line, which is accepted).
  *
  * What the reader does, and where the rule comes from:
  * - Case-insensitive; `!` starts a comment anywhere on a line ("General Syntax Rules and
  *   Guidelines", rules 1 and 3). Comments are kept, in order, without the `!`.
  * - Option line defaults GHz, S, MA, R 50; fields in any order ("Option Line"). One option line per
- *   file: a second one is refused here rather than ignored, since two conflicting headers in one
- *   measured file are more likely a paste mistake than intent.
+ *   file: a second one is refused (a lenient reader might skip it, but two headers in one measured
+ *   file are more likely two files pasted together than intent).
  * - Version 1: comments, the option line, then one data line per frequency: `f N11` for one-ports,
  *   `f N11 N21 N12 N22` for two-ports ("Network Data", 1-port and 2-port networks: "Network data
  *   for 1-port and 2-port networks is contained on one data line"). In a version 1 two-port file,
@@ -194,7 +194,8 @@ function parseRaw(text: string, ports: Ports): RawNetwork {
   const dataLine: number[] = [];
   let lastRawFrequency = Number.NaN;
   let noiseLines = 0;
-  let lastContentLine = 0;
+  /** Where problems found at the end of the file are reported: its last line that is not blank. */
+  let lastNonBlankLine = 0;
   const pair = complex();
 
   const numbersOf = (content: string, line: number, what: string): number[] =>
@@ -390,6 +391,7 @@ function parseRaw(text: string, ports: Ports): RawNetwork {
   for (let index = 0; index < lines.length; index++) {
     const line = index + 1;
     let content = lines[index];
+    if (content.trim() !== '') lastNonBlankLine = line;
     const bang = content.indexOf('!');
     if (bang >= 0) {
       comments.push(content.slice(bang + 1).trim());
@@ -397,7 +399,6 @@ function parseRaw(text: string, ports: Ports): RawNetwork {
     }
     content = content.trim();
     if (content === '') continue;
-    lastContentLine = line;
     const isKeyword = content.startsWith('[');
     const isOption = content.startsWith('#');
 
@@ -518,7 +519,7 @@ function parseRaw(text: string, ports: Ports): RawNetwork {
     }
   }
 
-  const endLine = Math.max(lastContentLine, 1);
+  const endLine = Math.max(lastNonBlankLine, 1);
   if (stage === 'start') throw new TouchstoneError(endLine, 'missing data: the file has no option line and no data');
   if (stage === 'v1-data' && frequencyHz.length === 0) throw new TouchstoneError(endLine, `missing data: the option line (line ${optionLineNumber}) is not followed by any data line`);
   if (stage === 'v2-option') throw new TouchstoneError(endLine, 'missing option line after [Version]');

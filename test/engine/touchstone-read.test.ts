@@ -221,6 +221,12 @@ describe('two-port files (used to read back what the writer wrote)', () => {
     expect(Array.from(readTwoPortTouchstone(text).matrices[0])).toEqual([0.1, 0, 0.3, 0, 0.3, 0, 0.4, 0]);
   });
 
+  it('reads [Reference] values that continue on the next line', () => {
+    // The specification allows the [Reference] arguments to span lines (its Example 6 does so).
+    const text = ['[Version] 2.0', '# GHz S MA', '[Number of Ports] 2', '[Two-Port Data Order] 12_21', '[Reference] 50', '25', '[Number of Frequencies] 1', '[Network Data]', '1 0 0 1 0 1 0 0 0', '[End]'].join('\n');
+    expect(readTwoPortTouchstone(text).referenceOhm).toEqual([50, 25]);
+  });
+
   it('de-normalises version 1 two-port Z-data by R', () => {
     // "# Hz Z RI R 50" with z11 = 1: Z11 = 1 x 50 = 50 ohm.
     const data = readTwoPortTouchstone('# Hz Z RI R 50\n1 1 0 1 0 1 0 1 0\n');
