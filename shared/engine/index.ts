@@ -7,6 +7,7 @@ export * from './bandwidth.js';
 export * from './cautions.js';
 export * from './complex.js';
 export * from './e-series.js';
+export * from './element-report.js';
 export * from './engine-input-error.js';
 export * from './l-network.js';
 export * from './ladder.js';

@@ -167,6 +167,11 @@ export function partImpedance(part: PartModel, omegaRadPerS: number, out: Comple
     : inductorImpedance(valueSi, loss, part.cpF, omegaRadPerS, out);
 }
 
+/** {@link elementImpedance} at a frequency in Hz, nominal values, full models. */
+export function elementImpedanceAt(element: ElementModel, frequencyHz: number, out: Complex = { re: 0, im: 0 }): Complex {
+  return elementImpedance(element, angularFrequency(frequencyHz), out);
+}
+
 /** {@link partImpedance} at a frequency in Hz, nominal value, full model. */
 export function partImpedanceAt(part: PartModel, frequencyHz: number, out: Complex = { re: 0, im: 0 }): Complex {
   return partImpedance(part, angularFrequency(frequencyHz), out);
