@@ -8,6 +8,7 @@ import type { Sequelize } from 'sequelize';
 import { User } from '../server/models/index.js';
 import { hashPassword } from '../server/services/users/password.js';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts.js';
+import { loadDemoStock } from './load-demo-stock.js';
 
 interface Seed {
   name: string;
@@ -26,6 +27,7 @@ const SEEDS: Seed[] = [
       });
     },
   },
+  { name: '0002-demo-stock', run: loadDemoStock },
 ];
 
 /** Runs every seed not yet recorded in `seed_runs`; returns the names run. */
