@@ -1,44 +1,209 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { HttpErrorResponse } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
+import { FormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { Router } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
 
-/** Matches page. Not built yet: it says so, and what it will hold. */
+import type { SolveRequest, SolveResponse } from '../../../shared/api/matches.js';
+import { type SolveInput, isEngineInputError, parseSolveRequest } from '../../../shared/engine/index.js';
+import { apiErrorDetails, apiErrorMessage } from '../api/api-error-message.js';
+import { isAnnouncedByInterceptor } from '../auth/auth-interceptor.js';
+import { AuthSession } from '../auth/auth-session.js';
+import { type MatchFormField, controlOfRequestField } from './field-reading.js';
+import { MatchClient } from './match-client.js';
+import { MatchForm } from './match-form.js';
+import { MatchResults } from './match-results.js';
+import type { ChosenFit, SavedMatch } from './saved-match.js';
+import { SavedMatchList } from './saved-match-list.js';
+
+/** How long a confirmation stays, in milliseconds. */
+const NOTICE_MS = 5000;
+/** Longest match name the form accepts. */
+export const MAX_MATCH_NAME_LENGTH = 120;
+
+/** The fit chosen by default: `preferred` when the answer has it, else the best fit of the first network that has one. */
+export function defaultChoice(solution: SolveResponse | undefined, preferred: ChosenFit | null): ChosenFit | null {
+  if (!solution) return null;
+  const has = (choice: ChosenFit) =>
+    solution.networks.some((n) => n.placement === choice.placement && n.solution === choice.solution && n.fits.some((f) => f.rank === choice.rank));
+  if (preferred && has(preferred)) return preferred;
+  const network = solution.networks.find((n) => n.fits.length > 0);
+  return network ? { placement: network.placement, solution: network.solution, rank: network.fits[0].rank } : null;
+}
+
+/**
+ * The Match workspace: the form, what a solve found (ideal networks, stocked fits, plot, Smith chart,
+ * cautions), saving the chosen fit under a name, and the saved matches, which reopen with their
+ * results (`?saved=<id>`).
+ */
 @Component({
   selector: 'sm-matches-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule],
-  template: `
-    <h1 class="title"><mat-icon aria-hidden="true">cable</mat-icon>Matches</h1>
-    <p class="status" data-testid="matches-status">Not built yet: matches are coming with the snapping work.</p>
-    <p class="plan">Here a designer will enter a source and a load impedance and a frequency, see the ideal L networks, the best fits from the parts in stock with what the snapping costs, a response plot and a Smith chart, and save the chosen fit.</p>
-  `,
-  styles: `
-    :host {
-      display: block;
-      max-width: 48em;
-    }
-    .title {
-      display: flex;
-      align-items: center;
-      gap: 12px;
-      margin: 0 0 16px;
-      font: var(--mat-sys-headline-small);
-    }
-    .title mat-icon {
-      color: var(--mat-sys-tertiary);
-    }
-    .status {
-      display: inline-block;
-      margin: 0 0 12px;
-      padding: 6px 14px;
-      border-radius: var(--mat-sys-corner-full);
-      background: var(--mat-sys-secondary-container);
-      color: var(--mat-sys-on-secondary-container);
-      font: var(--mat-sys-label-large);
-    }
-    .plan {
-      font: var(--mat-sys-body-large);
-      line-height: 1.6;
-    }
-  `,
+  imports: [
+    FormsModule,
+    MatButtonModule,
+    MatCardModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatchForm,
+    MatchResults,
+    SavedMatchList,
+  ],
+  templateUrl: './matches-page.html',
+  styleUrl: './matches-page.scss',
 })
-export class MatchesPage {}
+export class MatchesPage {
+  /** Id of the saved match to reopen, from the `saved` query parameter. */
+  readonly saved = input<string | undefined>(undefined);
+
+  private readonly client = inject(MatchClient);
+  private readonly session = inject(AuthSession);
+  private readonly router = inject(Router);
+  private readonly snackBar = inject(MatSnackBar);
+
+  protected readonly maxNameLength = MAX_MATCH_NAME_LENGTH;
+  /** Whether the signed-in role may save matches (designer and admin; every role may read them). */
+  protected readonly maySave = computed(() => {
+    const role = this.session.currentUser()?.role;
+    return role === 'designer' || role === 'admin';
+  });
+
+  /** The request last sent to solve. */
+  private readonly submitted = signal<SolveRequest | null>(null);
+  protected readonly solved = rxResource({
+    params: () => this.submitted() ?? undefined,
+    stream: ({ params }) => this.client.solve(params),
+  });
+
+  /** The saved match being reopened. */
+  protected readonly savedMatch = rxResource({
+    params: () => this.saved() || undefined,
+    stream: ({ params }) => this.client.open(params),
+  });
+  protected readonly savedList = rxResource({ stream: () => this.client.list() });
+
+  /** The request that the results on screen answer. */
+  protected readonly shownRequest = computed<SolveRequest | null>(() => {
+    const detail = this.reopened();
+    return detail?.result ? detail.request : this.submitted();
+  });
+  /** The saved match on screen, when one is reopened. */
+  protected readonly reopened = computed<SavedMatch | null>(() =>
+    this.saved() && this.savedMatch.hasValue() ? this.savedMatch.value() : null,
+  );
+  /** The answer on screen: a reopened match's stored results, else the last solve's. */
+  protected readonly solution = computed<SolveResponse | undefined>(() => {
+    const detail = this.reopened();
+    if (detail?.result) return detail.result;
+    return this.solved.hasValue() ? this.solved.value() : undefined;
+  });
+  /** The request as numbers, for the plots. */
+  protected readonly solveInput = computed<SolveInput | null>(() => {
+    const request = this.shownRequest();
+    if (!request) return null;
+    try {
+      return parseSolveRequest(request);
+    } catch (error: unknown) {
+      if (isEngineInputError(error)) return null;
+      throw error;
+    }
+  });
+
+  /** The fit the designer has chosen. */
+  protected readonly chosen = linkedSignal<SolveResponse | undefined, ChosenFit | null>({
+    source: this.solution,
+    computation: (solution) => defaultChoice(solution, this.reopened()?.chosen ?? null),
+  });
+  /** A reopened match's sweep, while its own fit is the chosen one. */
+  protected readonly savedSweep = computed(() => {
+    const detail = this.reopened();
+    const chosen = this.chosen();
+    if (!detail?.sweep || !chosen) return null;
+    const same = detail.chosen.placement === chosen.placement && detail.chosen.solution === chosen.solution && detail.chosen.rank === chosen.rank;
+    return same ? detail.sweep : null;
+  });
+
+  /** Problems the server found in the last request, by form field. */
+  protected readonly serverProblems = computed<Partial<Record<MatchFormField, string>>>(() => {
+    const error = this.solved.error();
+    const problems: Partial<Record<MatchFormField, string>> = {};
+    for (const detail of apiErrorDetails(error)) {
+      const control = controlOfRequestField(detail.field);
+      if (control && problems[control] === undefined) problems[control] = detail.message.replace(/^[A-Za-z][\w.]*: /, '');
+    }
+    return problems;
+  });
+  /** A failure to show above the results, when it is not tied to a field. */
+  protected readonly solveFailure = computed(() => {
+    const error = this.solved.error();
+    if (!error) return null;
+    if (error instanceof HttpErrorResponse && error.status === 400 && Object.keys(this.serverProblems()).length > 0) {
+      return 'The server could not read some inputs; see the fields marked above.';
+    }
+    return apiErrorMessage(error, 'The match could not be solved, and the server did not say why.');
+  });
+
+  /** The name to save the chosen fit under. */
+  protected readonly matchName = signal('');
+  /** Whether a save is on its way. */
+  protected readonly saving = signal(false);
+  /** Why the last save failed, or null. */
+  protected readonly saveFailure = signal<string | null>(null);
+  /** Form preset: a reopened match's inputs. */
+  protected readonly preset = computed(() => this.reopened()?.request ?? null);
+
+  constructor() {
+    // A reopened match whose results were not stored is solved again from its inputs.
+    effect(() => {
+      const detail = this.reopened();
+      if (detail && !detail.result) this.submitted.set(detail.request);
+      if (detail) this.matchName.set(detail.name);
+    });
+  }
+
+  protected async solveRequest(request: SolveRequest): Promise<void> {
+    this.saveFailure.set(null);
+    if (this.saved()) await this.router.navigate([], { queryParams: { saved: null } });
+    // A new object each time, so solving the same inputs again asks the server again.
+    this.submitted.set({ ...request });
+  }
+
+  protected chooseFit(choice: ChosenFit): void {
+    this.chosen.set(choice);
+  }
+
+  protected async saveChosenFit(): Promise<void> {
+    const request = this.shownRequest();
+    const chosen = this.chosen();
+    const name = this.matchName().trim();
+    if (!request || !chosen || name === '' || this.saving()) return;
+    this.saving.set(true);
+    this.saveFailure.set(null);
+    try {
+      const saved = await firstValueFrom(this.client.save(name, request, chosen));
+      this.savedList.reload();
+      this.snackBar.open(`Saved “${saved.name ?? name}”.`, 'Close', { duration: NOTICE_MS });
+    } catch (error: unknown) {
+      this.saveFailure.set(
+        isAnnouncedByInterceptor(error) ? 'The match was not saved.' : apiErrorMessage(error, 'The match was not saved, and the server did not say why.'),
+      );
+    } finally {
+      this.saving.set(false);
+    }
+  }
+
+  protected openId(): number | null {
+    const id = Number(this.saved());
+    return this.saved() && Number.isFinite(id) ? id : null;
+  }
+}

@@ -1,0 +1,42 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { type Observable, map } from 'rxjs';
+
+import type { SolveRequest, SolveResponse } from '../../../shared/api/matches.js';
+import type { ChosenFit, SaveMatchRequest, SavedMatch, SavedMatchSummary } from './saved-match.js';
+
+/** The match routes of the API (api.md "Matches"): solve, save, list and open. */
+@Injectable({ providedIn: 'root' })
+export class MatchClient {
+  private readonly http = inject(HttpClient);
+
+  /** Ideal networks and their stocked fits for a request (`POST /api/matches/solve`; saves nothing). */
+  solve(request: SolveRequest): Observable<SolveResponse> {
+    return this.http.post<SolveResponse>('/api/matches/solve', request);
+  }
+
+  /** Saves a request with its chosen fit under a name (`POST /api/matches`). */
+  save(name: string, request: SolveRequest, chosen: ChosenFit): Observable<SavedMatchSummary> {
+    const body: SaveMatchRequest = { name, request, chosen };
+    return this.http.post<SavedMatchSummary>('/api/matches', body);
+  }
+
+  /**
+   * The saved matches (`GET /api/matches`). api.md does not fix the list's envelope, so both a bare
+   * array and the `{items}` envelope of the other list routes are read.
+   */
+  list(): Observable<SavedMatchSummary[]> {
+    return this.http.get<SavedMatchSummary[] | { items: SavedMatchSummary[] }>('/api/matches').pipe(
+      map((answer) => {
+        if (Array.isArray(answer)) return answer;
+        if (answer && Array.isArray(answer.items)) return answer.items;
+        throw new Error('MatchClient: GET /api/matches answered neither a list nor {items: [...]}.');
+      }),
+    );
+  }
+
+  /** One saved match with its inputs, chosen fit, results and sweep (`GET /api/matches/:id`). */
+  open(id: number | string): Observable<SavedMatch> {
+    return this.http.get<SavedMatch>(`/api/matches/${encodeURIComponent(id)}`);
+  }
+}

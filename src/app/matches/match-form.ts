@@ -1,0 +1,160 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, output, signal } from '@angular/core';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { type AbstractControl, FormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { debounceTime, map, startWith } from 'rxjs';
+
+import type { Objective, SolveRequest } from '../../../shared/api/matches.js';
+import { type FieldReading, type MatchFormField, type MatchFormValue, readForm, solveRequestOf } from './field-reading.js';
+
+/** How long typing must pause before a field's reading updates, in milliseconds. */
+export const READING_DEBOUNCE_MS = 250;
+
+/** The objectives a designer may pick, with the words the form shows. */
+export const OBJECTIVE_CHOICES: readonly { value: Objective; label: string }[] = [
+  { value: 'worst-case', label: 'Worst case over tolerances' },
+  { value: 'nominal', label: 'Nominal values at f0' },
+  { value: 'band', label: 'Across the band' },
+];
+
+/** What a request field of a saved match holds, as form text. */
+function textOf(value: unknown): string {
+  if (value === undefined || value === null) return '';
+  if (typeof value === 'object' && 're' in (value as object)) {
+    const { re, im = 0 } = value as { re: number; im?: number };
+    return im === 0 ? String(re) : `${re}${im < 0 ? '-' : '+'}j${Math.abs(im)}`;
+  }
+  return String(value);
+}
+
+/**
+ * The match form: source and load impedances, frequency, optional band and power, build quantity,
+ * combinations, objective and location. Every text field shows, a moment after typing stops, what it
+ * reads as (the engine's parse, in engineering notation) or the engine's message for what is wrong.
+ */
+@Component({
+  selector: 'sm-match-form',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatSelectModule,
+    MatSlideToggleModule,
+  ],
+  templateUrl: './match-form.html',
+  styleUrl: './match-form.scss',
+})
+export class MatchForm {
+  /** Whether a solve is on its way (the button waits). */
+  readonly pending = input(false);
+  /** Problems the server located in the last request, by form field. */
+  readonly serverProblems = input<Partial<Record<MatchFormField, string>>>({});
+  /** A request to fill the form with (a reopened saved match). */
+  readonly preset = input<SolveRequest | null>(null);
+  /** Emits the request to solve when the form reads cleanly. */
+  readonly solve = output<SolveRequest>();
+
+  protected readonly objectives = OBJECTIVE_CHOICES;
+  protected readonly form = inject(FormBuilder).nonNullable.group({
+    source: '50',
+    load: '',
+    frequency: '',
+    band: '',
+    power: '',
+    quantity: 1 as number | null,
+    combinations: false,
+    objective: 'worst-case' as Objective,
+    location: '',
+  });
+
+  /** Whether the designer has asked to solve (problems then show on untouched fields too). */
+  private readonly attempted = signal(false);
+  /** Names of fields changed since the server's problems arrived (their problem no longer applies). */
+  private readonly editedSinceServer = linkedSignal<Partial<Record<MatchFormField, string>>, ReadonlySet<string>>({
+    source: this.serverProblems,
+    computation: () => new Set<string>(),
+  });
+  /** Fields the designer has typed in. */
+  private readonly dirtyFields = signal<ReadonlySet<string>>(new Set());
+
+  /** What each field reads as, a moment after typing stops. */
+  private readonly readings = toSignal(
+    this.form.valueChanges.pipe(
+      startWith(this.form.getRawValue()),
+      debounceTime(READING_DEBOUNCE_MS),
+      map(() => readForm(this.form.getRawValue() as MatchFormValue)),
+    ),
+    { initialValue: readForm(this.form.getRawValue() as MatchFormValue) },
+  );
+
+  /** The line under each field: the value read, or a problem (the server's first, then the engine's). */
+  protected readonly lines = computed(() => {
+    const readings = this.readings();
+    const server = this.serverProblems();
+    const edited = this.editedSinceServer();
+    const shown: Partial<Record<MatchFormField, FieldReading>> = {};
+    for (const field of Object.keys(this.form.controls) as MatchFormField[]) {
+      const reading = readings[field];
+      if (server[field] && !edited.has(field)) shown[field] = { kind: 'problem', message: server[field] };
+      else if (reading?.kind === 'problem' && !(this.attempted() || this.dirtyFields().has(field))) shown[field] = { kind: 'empty' };
+      else if (reading) shown[field] = reading;
+    }
+    return shown;
+  });
+
+  constructor() {
+    for (const [name, control] of Object.entries(this.form.controls) as [string, AbstractControl][]) {
+      control.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
+        this.dirtyFields.update((fields) => new Set(fields).add(name));
+        this.editedSinceServer.update((fields) => new Set(fields).add(name));
+      });
+    }
+    effect(() => {
+      const preset = this.preset();
+      if (preset) this.fill(preset);
+    });
+  }
+
+  /** The problem shown under a field, or null. */
+  protected problem(field: MatchFormField): string | null {
+    const line = this.lines()[field];
+    return line?.kind === 'problem' ? line.message : null;
+  }
+
+  /** The value a field reads as, or null. */
+  protected reading(field: MatchFormField): string | null {
+    const line = this.lines()[field];
+    return line?.kind === 'value' ? line.shown : null;
+  }
+
+  protected submitRequest(): void {
+    this.attempted.set(true);
+    const value = this.form.getRawValue() as MatchFormValue;
+    const readings = readForm(value);
+    const hasProblem = Object.values(readings).some((reading) => reading?.kind === 'problem');
+    if (hasProblem || this.pending()) return;
+    this.solve.emit(solveRequestOf(value));
+  }
+
+  private fill(request: SolveRequest): void {
+    this.form.setValue({
+      source: textOf(request.source),
+      load: textOf(request.load),
+      frequency: textOf(request.frequencyHz),
+      band: textOf(request.bandwidthHz),
+      power: textOf(request.powerW),
+      quantity: request.buildQuantity ?? 1,
+      combinations: request.combinations ?? false,
+      objective: request.objective ?? 'worst-case',
+      location: textOf(request.location),
+    });
+  }
+}
