@@ -22,6 +22,12 @@ export const routes: Routes = [
     loadComponent: () => import('./auth/sign-in.js').then((m) => m.SignIn),
   },
   {
+    // Opened from an invitation or password-reset e-mail; the link token is the credential.
+    path: 'set-password',
+    title: 'Choose a password · Shelfmatch',
+    loadComponent: () => import('./set-password/set-password-page.js').then((m) => m.SetPasswordPage),
+  },
+  {
     path: '',
     loadComponent: () => import('./layout/shell.js').then((m) => m.Shell),
     canActivate: [signedInGuard],
@@ -63,6 +69,12 @@ export const routes: Routes = [
         title: 'Admin',
         canActivate: [roleGuard(...rolesOf('admin'))],
         loadComponent: () => import('./admin/admin-page.js').then((m) => m.AdminPage),
+      },
+      {
+        path: 'outbox',
+        title: 'Outbox',
+        canActivate: [roleGuard(...rolesOf('outbox'))],
+        loadComponent: () => import('./outbox/outbox-page.js').then((m) => m.OutboxPage),
       },
     ],
   },

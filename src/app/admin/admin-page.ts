@@ -8,6 +8,7 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTableModule } from '@angular/material/table';
 import { MatTooltipModule } from '@angular/material/tooltip';
 
+import type { AccountLinkPurpose } from '../../../shared/api/account-links.js';
 import { ROLES, type Role, type UpdateUserRequest, type User } from '../../../shared/api/auth.js';
 import { apiErrorMessage } from '../api/api-error-message.js';
 import { isAnnouncedByInterceptor } from '../auth/auth-interceptor.js';
@@ -82,6 +83,27 @@ export class AdminPage {
     return this.applyChange(user, { active }, done);
   }
 
+  /** E-mails `user` a single-use link to choose a password, and says until when it works. */
+  protected async sendLink(user: User, purpose: AccountLinkPurpose): Promise<void> {
+    const what = purpose === 'invitation' ? 'invitation' : 'password reset';
+    this.busyIds.update((ids) => new Set(ids).add(user.id));
+    try {
+      const sent = await this.directory.sendAccountLink(user.id, purpose);
+      const until = new Date(sent.expiresAt).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+      this.snackBar.open(`${capitalise(what)} sent to ${sent.email}; the link works once, until ${until}.`, 'Close', { duration: NOTICE_MS });
+    } catch (error: unknown) {
+      if (!isAnnouncedByInterceptor(error)) {
+        this.snackBar.open(apiErrorMessage(error, `The ${what} to ${user.email} was not sent.`), 'Close', { duration: NOTICE_MS });
+      }
+    } finally {
+      this.busyIds.update((ids) => {
+        const next = new Set(ids);
+        next.delete(user.id);
+        return next;
+      });
+    }
+  }
+
   protected isBusy(id: number): boolean {
     return this.busyIds().has(id);
   }
@@ -117,4 +139,9 @@ export class AdminPage {
 /** Users ordered by name as people read them, then by e-mail. */
 function sortByName(users: User[]): User[] {
   return [...users].sort((a, b) => a.name.localeCompare(b.name) || a.email.localeCompare(b.email));
+}
+
+/** `text` with its first letter in capitals. */
+function capitalise(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }

@@ -2,6 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 
+import type { AccountLinkPurpose, AccountLinkSent } from '../../../shared/api/account-links.js';
 import type { CreateUserRequest, UpdateUserRequest, User } from '../../../shared/api/auth.js';
 
 /** The users of the organisation, through the admin-only `/api/users` routes (api.md). */
@@ -23,6 +24,14 @@ export class UserDirectory {
   /** Creates a user with a role and a first password (`POST /api/users`). */
   createUser(request: CreateUserRequest): Promise<User> {
     return firstValueFrom(this.http.post<User>('/api/users', request));
+  }
+
+  /**
+   * E-mails the user a single-use link to choose a password: an invitation
+   * (`POST /api/users/:id/invitation`) or a password reset (`POST /api/users/:id/password-reset`).
+   */
+  sendAccountLink(id: number, purpose: AccountLinkPurpose): Promise<AccountLinkSent> {
+    return firstValueFrom(this.http.post<AccountLinkSent>(`/api/users/${encodeURIComponent(id)}/${purpose}`, {}));
   }
 
   /** Changes a user's role, name or whether they may sign in (`PATCH /api/users/:id`). */

@@ -5,7 +5,7 @@ describe('role access', () => {
     expect(areasFor('designer').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall']);
     expect(areasFor('stores').map((area) => area.path)).toEqual(['matches', 'stock', 'builds']);
     expect(areasFor('purchasing').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall']);
-    expect(areasFor('admin').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall', 'admin']);
+    expect(areasFor('admin').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall', 'admin', 'outbox']);
   });
 
   it('gives each role its first page', () => {
@@ -18,6 +18,8 @@ describe('role access', () => {
   it('keeps the Admin area to admins', () => {
     expect(mayEnter('admin', 'admin')).toBe(true);
     expect(mayEnter('designer', 'admin')).toBe(false);
+    for (const role of ['designer', 'stores', 'purchasing'] as const) expect(mayEnter(role, 'outbox')).toBe(false);
+    expect(mayEnter('admin', 'outbox')).toBe(true);
   });
 
   it('returns after sign-in only to an in-app page the role may open', () => {
