@@ -79,6 +79,11 @@ describe('invitation', () => {
     expect(row.token_hash).not.toContain(token);
     expect(row.created_by).toBe(admin.id);
     expect(JSON.stringify(await t.sequelize.query('SELECT * FROM user_tokens', { type: QueryTypes.SELECT }))).not.toContain(token);
+    // The Outbox keeps the message, but not the token: reading the Outbox must not open accounts.
+    const stored = await asAdmin(request(t.app).get(`/api/outbox/${res.body.outboxId}`));
+    expect(stored.body.subject).toBe('You are invited to Shelfmatch');
+    expect(stored.body.text).toContain(`${PUBLIC_URL}/set-password?token=[hidden]`);
+    expect(JSON.stringify(await t.sequelize.query('SELECT * FROM outbound_mail', { type: QueryTypes.SELECT }))).not.toContain(token);
 
     const check = await request(t.app).post('/api/auth/set-password/check').send({ token });
     expect(check.status).toBe(200);

@@ -158,6 +158,20 @@ describe('sendMail', () => {
     }
   });
 
+  it('hides the redact secrets in the record but sends them to the recipient', async () => {
+    const secret = 'Zq8-not-for-the-outbox_4f1';
+    const entry = await sendMail(
+      t.config.smtp,
+      { to: 'invitee@tarnwick.example', subject: 'Link', text: `Open https://x.example/set-password?token=${secret} now`, html: `<a href="https://x.example/set-password?token=${secret}">open</a>` },
+      { purpose: 'invitation', actorId: null, redact: [secret] },
+    );
+    const row = await outboundRow(entry.id);
+    expect(row.text_body).toBe('Open https://x.example/set-password?token=[hidden] now');
+    expect(row.html_body).toBe('<a href="https://x.example/set-password?token=[hidden]">open</a>');
+    const [arrived] = t.mail.messagesTo('invitee@tarnwick.example');
+    expect(arrived.text).toContain(`token=${secret} now`);
+  });
+
   it('refuses to send without a recipient', async () => {
     await expect(sendMail(t.config.smtp, { to: ['  '], subject: 's', text: 't' }, { purpose: 'invitation', actorId: null })).rejects.toThrow(/at least one recipient/);
   });

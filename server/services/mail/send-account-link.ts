@@ -51,7 +51,8 @@ export async function sendAccountLink(
   let outboxId: number;
   let failure: MailDeliveryError | undefined;
   try {
-    outboxId = (await sendMail(config.smtp, mail, { purpose, actorId: actor.id })).id;
+    // The token goes to the user only; the Outbox keeps the message with the token hidden.
+    outboxId = (await sendMail(config.smtp, mail, { purpose, actorId: actor.id, redact: [token] })).id;
   } catch (error) {
     if (!(error instanceof MailDeliveryError)) {
       // Not sent (e.g. the database went away): the new link must not work later.

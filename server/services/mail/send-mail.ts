@@ -34,7 +34,15 @@ export interface SendMailContext {
   purpose: MailPurpose;
   /** The signed-in user who caused the send; null for the system. */
   actorId: number | null;
+  /**
+   * Secrets in the bodies (a link token) that go to the recipient but not into the Outbox record:
+   * each is written there as `[hidden]`.
+   */
+  redact?: readonly string[];
 }
+
+/** What a redacted secret reads as in the Outbox. */
+export const REDACTED = '[hidden]';
 
 /**
  * A send that did not reach the mail server, or that it refused. Its status and code are those
@@ -56,6 +64,7 @@ const CONTENT_TYPES: Record<string, string> = { csv: 'text/csv', txt: 'text/plai
 
 /**
  * Sends `mail` through the SMTP server in `smtp` and returns its Outbox entry (status `sent`).
+ * The record keeps the bodies as sent, minus the `context.redact` secrets.
  *
  * The record is written before the SMTP conversation (status `sending`) in its own statement,
  * outside any caller transaction, so no message ever leaves without a record and a rolled-back
@@ -73,13 +82,14 @@ export async function sendMail(smtp: SmtpSettings, mail: OutgoingMail, context: 
     contentType: a.contentType ?? CONTENT_TYPES[a.filename.split('.').pop()?.toLowerCase() ?? ''] ?? 'application/octet-stream',
   }));
 
+  const hide = (body: string) => (context.redact ?? []).filter(Boolean).reduce((text, secret) => text.split(secret).join(REDACTED), body);
   const record = await OutboundMail.create({
     purpose: context.purpose,
     fromAddress: smtp.from,
     toAddresses: to,
     subject: mail.subject,
-    textBody: mail.text,
-    htmlBody: mail.html ?? null,
+    textBody: hide(mail.text),
+    htmlBody: mail.html === undefined ? null : hide(mail.html),
     attachments: attachments.map((a) => ({
       filename: a.filename,
       contentType: a.contentType,
