@@ -1,44 +1,49 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { MatTabsModule } from '@angular/material/tabs';
 
-/** Stock page. Not built yet: it says so, and what it will hold. */
+import type { Role } from '../../../shared/api/auth.js';
+import type { StockImportReport } from '../../../shared/api/stock.js';
+import { AuthSession } from '../auth/auth-session.js';
+import { ImportHistory } from './import-history.js';
+import { PartTable } from './part-table.js';
+import { StockUpload } from './stock-upload.js';
+
+/** Roles that may upload stock lists (product.md: stores; admin may do everything). */
+export const STOCK_UPLOAD_ROLES: readonly Role[] = ['stores', 'admin'];
+
+/** The Stock page: the stock list for everyone; uploads for stores and admin; the import history. */
 @Component({
   selector: 'sm-stock-page',
+  templateUrl: './stock-page.html',
+  styleUrl: './stock-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule],
-  template: `
-    <h1 class="title"><mat-icon aria-hidden="true">inventory_2</mat-icon>Stock</h1>
-    <p class="status" data-testid="stock-status">Not built yet: the stock list is coming with the stock import work.</p>
-    <p class="plan">Here everyone will be able to read the stock list, and stores will upload stock-list CSV files, see a row-by-row report of rejected rows, and see what changed since the last import.</p>
-  `,
-  styles: `
-    :host {
-      display: block;
-      max-width: 48em;
-    }
-    .title {
-      display: flex;
-      align-items: center;
-      gap: 12px;
-      margin: 0 0 16px;
-      font: var(--mat-sys-headline-small);
-    }
-    .title mat-icon {
-      color: var(--mat-sys-tertiary);
-    }
-    .status {
-      display: inline-block;
-      margin: 0 0 12px;
-      padding: 6px 14px;
-      border-radius: var(--mat-sys-corner-full);
-      background: var(--mat-sys-secondary-container);
-      color: var(--mat-sys-on-secondary-container);
-      font: var(--mat-sys-label-large);
-    }
-    .plan {
-      font: var(--mat-sys-body-large);
-      line-height: 1.6;
-    }
-  `,
+  imports: [MatIconModule, MatTabsModule, ImportHistory, PartTable, StockUpload],
 })
-export class StockPage {}
+export class StockPage {
+  private readonly session = inject(AuthSession);
+
+  /** Whether the signed-in role may upload stock lists. */
+  protected readonly mayUpload = computed(() => {
+    const role = this.session.currentUser()?.role;
+    return role !== undefined && STOCK_UPLOAD_ROLES.includes(role);
+  });
+  protected readonly tabIndex = signal(0);
+  /** Bumped after each applied import, so the list and the history fetch again. */
+  protected readonly revision = signal(0);
+  /** The import whose changes the history shows. */
+  protected readonly selectedImportId = signal<number | null>(null);
+
+  /** Index of the history tab (after the upload tab when there is one). */
+  private readonly historyTab = computed(() => (this.mayUpload() ? 2 : 1));
+
+  protected noteImport(report: StockImportReport): void {
+    this.revision.update((n) => n + 1);
+    if (report.importId !== null) this.selectedImportId.set(report.importId);
+  }
+
+  protected showChanges(importId: number): void {
+    this.selectedImportId.set(importId);
+    this.tabIndex.set(this.historyTab());
+  }
+}
