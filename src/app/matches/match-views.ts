@@ -1,11 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import { rxResource } from '@angular/core/rxjs-interop';
 import { map } from 'rxjs';
 
 import type { Fit, MatchNetwork } from '../../../shared/api/matches.js';
 import type { SolveInput } from '../../../shared/engine/index.js';
 import { FitParts } from './fit-parts.js';
 import { placementName } from './network-card.js';
+import { answerOf, latestAnswer } from './request-state.js';
 import type { MatchSweep } from './saved-match.js';
 import { SmithChart } from './smith-chart.js';
 import { type SmithElement, reactanceAt } from './smith-path.js';
@@ -77,24 +77,23 @@ export class MatchViews {
   });
 
   /** The fit's curve swept from its stocked parts, when there is no saved sweep. */
-  private readonly sweptFit = rxResource({
-    params: () => (this.savedSweep()?.fitTpg ? undefined : (this.fit() ?? undefined)),
-    stream: ({ params: fit }) => {
+  private readonly sweptFit = latestAnswer(
+    computed(() => (this.savedSweep()?.fitTpg ? undefined : (this.fit() ?? undefined))),
+    (fit) => {
       const { source, load, frequencyHz, bandwidthHz } = this.solveInput();
       return this.fitParts.partsOf(fit).pipe(map((parts) => fitTpgCurve(fit, parts, source, load, frequencyHz, bandwidthHz)));
     },
-  });
+  );
 
   protected readonly fitCurve = computed<TpgCurve | null>(() => {
     const saved = this.savedSweep();
     if (saved?.fitTpg) return curveFromTpg(saved.frequenciesHz, saved.fitTpg);
-    if (!this.fit() || this.sweptFit.error()) return null;
-    return this.sweptFit.hasValue() ? this.sweptFit.value() : null;
+    return this.fit() ? (answerOf(this.sweptFit()) ?? null) : null;
   });
 
   protected readonly fitNote = computed(() => {
     if (!this.fit()) return 'Choose a fit to compare it with the ideal network.';
-    if (this.sweptFit.error()) return 'The fit’s curve cannot be drawn: one of its parts is no longer in the stock list.';
+    if (this.sweptFit().status === 'failed') return 'The fit’s curve cannot be drawn: one of its parts is no longer in the stock list.';
     return 'Sweeping the fit with its parts’ models…';
   });
 

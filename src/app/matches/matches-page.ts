@@ -1,6 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, linkedSignal, signal } from '@angular/core';
-import { rxResource } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
@@ -21,7 +20,8 @@ import { type MatchFormField, controlOfRequestField } from './field-reading.js';
 import { MatchClient } from './match-client.js';
 import { MatchForm } from './match-form.js';
 import { MatchResults } from './match-results.js';
-import type { ChosenFit, SavedMatch } from './saved-match.js';
+import { answerOf, failureOf, latestAnswer } from './request-state.js';
+import type { ChosenFit, SavedMatch, SavedMatchSummary } from './saved-match.js';
 import { SavedMatchList } from './saved-match-list.js';
 
 /** How long a confirmation stays, in milliseconds. */
@@ -80,17 +80,25 @@ export class MatchesPage {
 
   /** The request last sent to solve. */
   private readonly submitted = signal<SolveRequest | null>(null);
-  protected readonly solved = rxResource({
-    params: () => this.submitted() ?? undefined,
-    stream: ({ params }) => this.client.solve(params),
-  });
+  protected readonly solved = latestAnswer(
+    computed(() => this.submitted() ?? undefined),
+    (request) => this.client.solve(request),
+  );
 
   /** The saved match being reopened. */
-  protected readonly savedMatch = rxResource({
-    params: () => this.saved() || undefined,
-    stream: ({ params }) => this.client.open(params),
-  });
-  protected readonly savedList = rxResource({ stream: () => this.client.list() });
+  protected readonly savedMatch = latestAnswer(
+    computed(() => this.saved() || undefined),
+    (id) => this.client.open(id),
+  );
+  /** Bumped to fetch the saved matches again. */
+  private readonly listVersion = signal(0);
+  protected readonly savedList = latestAnswer(this.listVersion, () => this.client.list());
+  /** The saved matches (empty while they are fetched). */
+  protected readonly savedMatches = computed((): SavedMatchSummary[] => answerOf(this.savedList()) ?? []);
+  /** Why the saved match could not be opened. */
+  protected readonly savedMatchFailure = computed(() =>
+    apiErrorMessage(failureOf(this.savedMatch()), 'The saved match could not be opened, and the server did not say why.'),
+  );
 
   /** The request that the results on screen answer. */
   protected readonly shownRequest = computed<SolveRequest | null>(() => {
@@ -99,13 +107,13 @@ export class MatchesPage {
   });
   /** The saved match on screen, when one is reopened. */
   protected readonly reopened = computed<SavedMatch | null>(() =>
-    this.saved() && this.savedMatch.hasValue() ? this.savedMatch.value() : null,
+    this.saved() ? (answerOf(this.savedMatch()) ?? null) : null,
   );
   /** The answer on screen: a reopened match's stored results, else the last solve's. */
   protected readonly solution = computed<SolveResponse | undefined>(() => {
     const detail = this.reopened();
     if (detail?.result) return detail.result;
-    return this.solved.hasValue() ? this.solved.value() : undefined;
+    return answerOf(this.solved());
   });
   /** The request as numbers, for the plots. */
   protected readonly solveInput = computed<SolveInput | null>(() => {
@@ -135,7 +143,7 @@ export class MatchesPage {
 
   /** Problems the server found in the last request, by form field. */
   protected readonly serverProblems = computed<Partial<Record<MatchFormField, string>>>(() => {
-    const error = this.solved.error();
+    const error = failureOf(this.solved());
     const problems: Partial<Record<MatchFormField, string>> = {};
     for (const detail of apiErrorDetails(error)) {
       const control = controlOfRequestField(detail.field);
@@ -145,7 +153,7 @@ export class MatchesPage {
   });
   /** A failure to show above the results, when it is not tied to a field. */
   protected readonly solveFailure = computed(() => {
-    const error = this.solved.error();
+    const error = failureOf(this.solved());
     if (!error) return null;
     if (error instanceof HttpErrorResponse && error.status === 400 && Object.keys(this.serverProblems()).length > 0) {
       return 'The server could not read some inputs; see the fields marked above.';
@@ -191,7 +199,7 @@ export class MatchesPage {
     this.saveFailure.set(null);
     try {
       const saved = await firstValueFrom(this.client.save(name, request, chosen));
-      this.savedList.reload();
+      this.reloadSavedMatches();
       this.snackBar.open(`Saved “${saved.name ?? name}”.`, 'Close', { duration: NOTICE_MS });
     } catch (error: unknown) {
       this.saveFailure.set(
@@ -201,6 +209,13 @@ export class MatchesPage {
       this.saving.set(false);
     }
   }
+
+  protected reloadSavedMatches(): void {
+    this.listVersion.update((version) => version + 1);
+  }
+
+  /** Whether a solve or a reopen is on its way. */
+  protected readonly busy = computed(() => this.solved().status === 'loading' || this.savedMatch().status === 'loading');
 
   protected openId(): number | null {
     const id = Number(this.saved());

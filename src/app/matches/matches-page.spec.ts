@@ -1,0 +1,245 @@
+import { provideHttpClient, withInterceptors } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { HarnessLoader } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { provideRouter } from '@angular/router';
+
+import type { Role } from '../../../shared/api/auth.js';
+import { authInterceptor } from '../auth/auth-interceptor.js';
+import { BlankPage } from '../testing/blank-page.js';
+import { demoUser, storeSession } from '../testing/signed-in-user.js';
+import { LOW_PASS_BEST, SOLVED, STOCKED_PARTS } from './match-fixtures.js';
+import { MatchesPage } from './matches-page.js';
+import type { SavedMatch, SavedMatchSummary } from './saved-match.js';
+
+const SAVED_LIST: SavedMatchSummary[] = [
+  {
+    id: 11,
+    name: 'Soil node 868 MHz chip antenna',
+    request: { source: '50', load: '12-j35', frequencyHz: '868MHz' },
+    chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
+    createdAt: '2026-11-30T09:15:00Z',
+  },
+];
+
+describe('MatchesPage', () => {
+  let fixture: ComponentFixture<MatchesPage>;
+  let loader: HarnessLoader;
+  let backend: HttpTestingController;
+  let page: HTMLElement;
+
+  async function open(role: Role = 'designer', saved: SavedMatchSummary[] = []): Promise<void> {
+    localStorage.clear();
+    storeSession(demoUser(role));
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([{ path: 'sign-in', component: BlankPage }]),
+        provideHttpClient(withInterceptors([authInterceptor])),
+        provideHttpClientTesting(),
+      ],
+    });
+    backend = TestBed.inject(HttpTestingController);
+    fixture = TestBed.createComponent(MatchesPage);
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    page = fixture.nativeElement;
+    fixture.detectChanges();
+    backend.expectOne({ method: 'GET', url: '/api/matches' }).flush(saved);
+    await fixture.whenStable();
+  }
+
+  const field = (id: string) => loader.getHarness(MatInputHarness.with({ selector: `[data-testid="${id}"]` }));
+  const button = (id: string) => loader.getHarness(MatButtonHarness.with({ selector: `[data-testid="${id}"]` }));
+  const all = (id: string) => Array.from(page.querySelectorAll<HTMLElement>(`[data-testid="${id}"]`));
+
+  /** Answers every stock lookup of a fit's parts from the invented stock list. */
+  function answerPartLookups(): number {
+    const lookups = backend.match((request) => request.url === '/api/parts');
+    for (const lookup of lookups) {
+      const wanted = lookup.request.params.get('search');
+      lookup.flush({ items: STOCKED_PARTS.filter((part) => part.partNumber === wanted), total: 1 });
+    }
+    return lookups.length;
+  }
+
+  async function solveDemoMatch(): Promise<void> {
+    await (await field('match-load')).setValue('12-j35');
+    await (await field('match-frequency')).setValue('868MHz');
+    await (await button('match-solve')).click();
+    const request = backend.expectOne({ method: 'POST', url: '/api/matches/solve' });
+    expect(request.request.body).toEqual({
+      source: '50',
+      load: '12-j35',
+      frequencyHz: '868MHz',
+      buildQuantity: 1,
+      combinations: false,
+      objective: 'worst-case',
+    });
+    request.flush(SOLVED);
+    await fixture.whenStable();
+    expect(answerPartLookups()).toBe(2);
+    await fixture.whenStable();
+  }
+
+  // jsdom has no 2D canvas (it logs "not implemented"); the plot then keeps only its text summary.
+  beforeEach(() => vi.spyOn(HTMLCanvasElement.prototype, 'getContext').mockReturnValue(null));
+  afterEach(() => {
+    backend.verify();
+    vi.restoreAllMocks();
+  });
+
+  it('renders one card per ideal network, with its traits and fits', async () => {
+    await open();
+    await solveDemoMatch();
+
+    const cards = all('network-card');
+    expect(cards.map((card) => [card.dataset['placement'], card.dataset['solution']])).toEqual([
+      ['shunt-at-source', '1'],
+      ['shunt-at-load', '2'],
+    ]);
+    const [lowPass, highPass] = cards;
+    expect(lowPass.querySelector('[data-testid="network-response"]')?.textContent).toContain('low-pass');
+    expect(lowPass.querySelector('[data-testid="network-dc"]')?.textContent).toContain('Passes DC');
+    expect(lowPass.querySelector('[data-testid="network-node-q"]')?.textContent).toContain('1.78');
+    expect(highPass.querySelector('[data-testid="network-dc"]')?.textContent).toContain('Blocks DC');
+    expect(highPass.querySelector('[data-testid="network-shunt-ground"]')).not.toBeNull();
+
+    // The schematic draws a shunt capacitor then a series inductor, source to load.
+    const symbols = Array.from(lowPass.querySelectorAll<SVGElement>('svg g.element')).map((g) => `${g.dataset['position']} ${g.dataset['kind']}`);
+    expect(symbols).toEqual(['shunt capacitor', 'series inductor']);
+    expect(lowPass.querySelector('svg[role="img"]')?.getAttribute('aria-label')).toContain('shunt element across the source');
+
+    const rows = Array.from(lowPass.querySelectorAll<HTMLElement>('[data-testid="fit-row"]'));
+    expect(rows.length).toBe(2);
+    expect(rows[0].textContent).toContain('TW-C0402-6P8');
+    expect(rows[0].textContent).toContain('6.8 pF nominal, 6.91 pF at f0');
+    expect(rows[0].textContent).toContain('f0/SRF 0.18');
+    expect(rows[0].textContent).toContain('0.61 dB');
+    expect(rows[0].textContent).toContain('TPG 0.944');
+    expect(rows[1].textContent).toContain('×2');
+    expect(rows[1].textContent).toContain('two in parallel');
+    const chips = Array.from(rows[1].querySelectorAll<HTMLElement>('mat-chip')).map((chip) => chip.textContent?.trim());
+    expect(chips).toContain('Above limit');
+    expect(chips).toContain('Short stock');
+    expect(rows[0].querySelector('[data-flag="limit-unknown"]')?.textContent?.trim()).toBe('Limit unknown');
+
+    // No stock for the other network: a plain message in its card, not an error.
+    expect(highPass.querySelector('[data-testid="no-fits"]')?.textContent).toContain('No stocked fit');
+    expect(all('fit-row').length).toBe(2);
+    expect(page.querySelector('[role="alert"]')).toBeNull();
+
+    expect(all('infeasible-placement')[0].textContent).toContain('not possible');
+  });
+
+  it('shows the cautions from the answer near the results', async () => {
+    await open();
+    await solveDemoMatch();
+    const cautions = all('match-cautions')[0];
+    expect(cautions.querySelectorAll('li').length).toBe(2);
+    expect(cautions.textContent).toContain('vector network analyser');
+    expect(cautions.textContent).toContain('radio regulations');
+  });
+
+  it('chooses the best fit of the first network, and draws the plot and the Smith chart for it', async () => {
+    await open();
+    await solveDemoMatch();
+    const chooses = all('fit-choose');
+    expect(chooses[0].getAttribute('aria-pressed')).toBe('true');
+    expect(chooses[1].getAttribute('aria-pressed')).toBe('false');
+
+    const plot = all('tpg-plot')[0];
+    expect(plot.querySelector('canvas')?.getAttribute('aria-label')).toMatch(/ideal network reaches -?0\.00 dB and the chosen fit -?\d+\.\d\d dB/);
+    const smith = all('smith-chart')[0];
+    expect(smith.querySelector('svg[role="img"]')?.getAttribute('aria-label')).toContain('normalised to 50 Ω');
+    expect(smith.querySelectorAll('[data-testid="smith-ideal-arc"]').length).toBe(2);
+    expect(smith.querySelectorAll('[data-testid="smith-fit-arc"]').length).toBe(2);
+
+    // Choosing the second fit moves the choice and sweeps that fit's parts.
+    await (await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[data-testid="fit-choose"]' })))[1].click();
+    expect(answerPartLookups()).toBe(2);
+    await fixture.whenStable();
+    expect(all('fit-choose').map((b) => b.getAttribute('aria-pressed'))).toEqual(['false', 'true']);
+  });
+
+  it('saves the chosen fit with its name and request, then lists it', async () => {
+    await open();
+    await solveDemoMatch();
+    await (await field('match-name')).setValue('Soil node 868 MHz chip antenna');
+    await (await button('match-save')).click();
+
+    const save = backend.expectOne({ method: 'POST', url: '/api/matches' });
+    expect(save.request.body).toEqual({
+      name: 'Soil node 868 MHz chip antenna',
+      request: {
+        source: '50',
+        load: '12-j35',
+        frequencyHz: '868MHz',
+        buildQuantity: 1,
+        combinations: false,
+        objective: 'worst-case',
+      },
+      chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
+    });
+    save.flush({ id: 11, name: 'Soil node 868 MHz chip antenna' });
+    const list = await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/matches' }));
+    list.flush(SAVED_LIST);
+    await fixture.whenStable();
+    const rows = all('saved-match-row');
+    expect(rows.length).toBe(1);
+    expect(rows[0].textContent).toContain('Soil node 868 MHz chip antenna');
+    expect(rows[0].textContent).toContain('868 MHz');
+  });
+
+  it('shows a 400 answer next to the field it names', async () => {
+    await open();
+    await (await field('match-load')).setValue('12-j35');
+    await (await field('match-frequency')).setValue('868MHz');
+    await (await field('match-location')).setValue('Shelf Z');
+    await (await button('match-solve')).click();
+    backend.expectOne('/api/matches/solve').flush(
+      {
+        error: {
+          code: 'invalid_input',
+          message: 'location: "Shelf Z" holds no parts',
+          details: [{ field: 'location', value: 'Shelf Z', message: 'location: "Shelf Z" holds no parts' }],
+        },
+      },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    await vi.waitFor(() =>
+      expect(page.querySelector('[data-testid="match-location-problem"]')?.textContent?.trim()).toBe('"Shelf Z" holds no parts'),
+    );
+    expect(page.querySelector('[data-testid="match-error"]')?.textContent).toContain('see the fields marked');
+    expect(all('network-card').length).toBe(0);
+  });
+
+  it('reopens a saved match with its stored results', async () => {
+    await open('purchasing', SAVED_LIST);
+    fixture.componentRef.setInput('saved', '11');
+    await fixture.whenStable();
+    const detail: SavedMatch = {
+      ...SAVED_LIST[0],
+      request: SAVED_LIST[0].request!,
+      chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
+      fit: LOW_PASS_BEST,
+      result: SOLVED,
+      sweep: { frequenciesHz: [800e6, 868e6, 900e6], idealTpg: [0.9, 1, 0.95], fitTpg: [0.85, 0.944, 0.9] },
+    };
+    backend.expectOne({ method: 'GET', url: '/api/matches/11' }).flush(detail);
+    await fixture.whenStable();
+
+    expect(page.querySelector('[data-testid="reopened-match"]')?.textContent).toContain('Soil node 868 MHz chip antenna');
+    expect(all('network-card').length).toBe(2);
+    // The saved sweep draws the fit, so no stock lookup is needed; nothing is solved again.
+    backend.expectNone('/api/matches/solve');
+    backend.expectNone((request) => request.url === '/api/parts');
+    expect(all('tpg-plot')[0].querySelector('canvas')?.getAttribute('aria-label')).toContain('ideal network reaches 0.00 dB and the chosen fit -0.25 dB');
+    expect(await (await field('match-load')).getValue()).toBe('12-j35');
+    // Purchasing may read saved matches but not save them.
+    expect(all('match-save').length).toBe(0);
+    expect(page.querySelector('[data-testid="match-save-role"]')).not.toBeNull();
+  });
+});
