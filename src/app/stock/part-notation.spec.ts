@@ -9,6 +9,9 @@ describe('part notation', () => {
     expect(partValueText('capacitor', 100e-12)).toBe('100 pF');
     expect(partValueText('inductor', 12e-9)).toBe('12 nH');
     expect(partValueText('inductor', 1e-6)).toBe('1 µH');
+    // Sub-picofarad chip capacitors are written in pF, as their makers do.
+    expect(partValueText('capacitor', 0.5e-12)).toBe('0.5 pF');
+    expect(partValueText('inductor', 0.6e-9)).toBe('0.6 nH');
   });
 
   it('writes relative and absolute tolerances', () => {
@@ -24,7 +27,7 @@ describe('part notation', () => {
   });
 
   it('shows ESR when given, since it wins over Q, else Q at its frequency', () => {
-    expect(lossText({ esrOhm: 0.3, q: 40, qFrequencyHz: 500e6 })).toBe('ESR 300 mΩ');
+    expect(lossText({ esrOhm: 0.3, q: 40, qFrequencyHz: 500e6 })).toBe('ESR 0.3 Ω');
     expect(lossText({ esrOhm: null, q: 40, qFrequencyHz: 500e6 })).toBe('Q 40 @ 500 MHz');
     expect(lossText({ esrOhm: null, q: null, qFrequencyHz: null })).toBe('—');
   });

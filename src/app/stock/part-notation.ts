@@ -10,9 +10,20 @@ import type { PartItem, PartKind, Tolerance } from '../../../shared/api/stock.js
 /** A dash for "not given", so empty cells read as deliberate. */
 export const NOT_GIVEN = '—';
 
-/** The nominal value of a part: `4.7 pF`, `12 nH`. */
+/** Below these the trade still writes pF and nH (0.5 pF, not 500 fF). */
+const SMALLEST_PREFIXED = { capacitance: { limitSi: 1e-12, unit: 'pF' }, inductance: { limitSi: 1e-9, unit: 'nH' } } as const;
+
+/** The nominal value of a part: `4.7 pF`, `12 nH`, `0.5 pF`. */
 export function partValueText(kind: PartKind, valueSi: number): string {
-  return formatValue(valueSi, kind === 'capacitor' ? 'capacitance' : 'inductance');
+  const quantity = kind === 'capacitor' ? 'capacitance' : 'inductance';
+  const { limitSi, unit } = SMALLEST_PREFIXED[quantity];
+  if (valueSi > 0 && valueSi < limitSi) return `${Number((valueSi / limitSi).toPrecision(4))} ${unit}`;
+  return formatValue(valueSi, quantity);
+}
+
+/** A loss resistance in ohms as datasheets write ESR: `0.3 Ω`, `1.36 Ω`. */
+export function resistanceText(resistanceOhm: number): string {
+  return resistanceOhm >= 1000 ? formatValue(resistanceOhm, 'resistance', { significantDigits: 3 }) : `${Number(resistanceOhm.toPrecision(3))} Ω`;
 }
 
 /** A tolerance: `±5 %`, `±0.25 pF`, `±0.2 nH`. */
@@ -27,7 +38,7 @@ export function frequencyText(frequencyHz: number | null): string {
 
 /** The loss the part list gives: ESR when given (it wins over Q), else `Q 40 @ 500 MHz`, else a dash. */
 export function lossText(part: Pick<PartItem, 'esrOhm' | 'q' | 'qFrequencyHz'>): string {
-  if (part.esrOhm !== null) return `ESR ${formatValue(part.esrOhm, 'resistance', { significantDigits: 3 })}`;
+  if (part.esrOhm !== null) return `ESR ${resistanceText(part.esrOhm)}`;
   if (part.q !== null && part.qFrequencyHz !== null) return `Q ${Number(part.q.toPrecision(3))} @ ${frequencyText(part.qFrequencyHz)}`;
   return NOT_GIVEN;
 }
@@ -55,7 +66,7 @@ export function changedFieldText(kind: PartKind, field: string, value: unknown):
     case 'qFrequencyHz':
       return frequencyText(value as number);
     case 'esrOhm':
-      return formatValue(value as number, 'resistance', { significantDigits: 3 });
+      return resistanceText(value as number);
     case 'voltageRating':
       return formatValue(value as number, 'voltage', { significantDigits: 3 });
     case 'currentRating':

@@ -89,7 +89,7 @@ describe('PartTable', () => {
     const table = await loader.getHarness(MatTableHarness.with({ selector: '[data-testid="stock-table"]' }));
     const rows = await Promise.all((await table.getRows()).map((row) => row.getCellTextByColumnName()));
     expect(rows.map((r) => [r['value'], r['tolerance'], r['srfHz'], r['loss'], r['rating'], r['location']])).toEqual([
-      ['4.7 pF', '±0.25 pF', '9.5 GHz', 'ESR 350 mΩ', '50 V', 'main'],
+      ['4.7 pF', '±0.25 pF', '9.5 GHz', 'ESR 0.35 Ω', '50 V', 'main'],
       ['12 nH', '±5 %', '—', 'Q 38 @ 500 MHz', '300 mA', 'lab'],
     ]);
     expect(rows[0]['available']).toContain('100');
