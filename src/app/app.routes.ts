@@ -76,6 +76,12 @@ export const routes: Routes = [
         canActivate: [roleGuard(...rolesOf('outbox'))],
         loadComponent: () => import('./outbox/outbox-page.js').then((m) => m.OutboxPage),
       },
+      {
+        path: 'settings',
+        title: 'Organisation settings',
+        canActivate: [roleGuard(...rolesOf('settings'))],
+        loadComponent: () => import('./settings/settings-page.js').then((m) => m.SettingsPage),
+      },
     ],
   },
   { path: '**', title: 'No such page · Shelfmatch', component: PageNotFound },

@@ -5,7 +5,7 @@ describe('role access', () => {
     expect(areasFor('designer').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall']);
     expect(areasFor('stores').map((area) => area.path)).toEqual(['matches', 'stock', 'builds']);
     expect(areasFor('purchasing').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall']);
-    expect(areasFor('admin').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall', 'admin', 'outbox']);
+    expect(areasFor('admin').map((area) => area.path)).toEqual(['matches', 'stock', 'builds', 'shortfall', 'admin', 'outbox', 'settings']);
   });
 
   it('gives each role its first page', () => {
@@ -20,6 +20,8 @@ describe('role access', () => {
     expect(mayEnter('designer', 'admin')).toBe(false);
     for (const role of ['designer', 'stores', 'purchasing'] as const) expect(mayEnter(role, 'outbox')).toBe(false);
     expect(mayEnter('admin', 'outbox')).toBe(true);
+    for (const role of ['designer', 'stores', 'purchasing'] as const) expect(mayEnter(role, 'settings')).toBe(false);
+    expect(mayEnter('admin', 'settings')).toBe(true);
   });
 
   it('returns after sign-in only to an in-app page the role may open', () => {

@@ -1,7 +1,7 @@
 import type { Role } from '../../../shared/api/auth.js';
 
 /** The top-level areas of the app, one lazy-loaded route each. */
-export type AreaPath = 'matches' | 'stock' | 'builds' | 'shortfall' | 'admin' | 'outbox';
+export type AreaPath = 'matches' | 'stock' | 'builds' | 'shortfall' | 'admin' | 'outbox' | 'settings';
 
 /** One area: where it lives, how the navigation names it, and which roles may open it. */
 export interface Area {
@@ -25,6 +25,7 @@ export const AREAS: readonly Area[] = [
   { path: 'shortfall', label: 'Shortfall lists', icon: 'receipt_long', roles: ['purchasing', 'designer', 'admin'] },
   { path: 'admin', label: 'Admin', icon: 'admin_panel_settings', roles: ['admin'] },
   { path: 'outbox', label: 'Outbox', icon: 'outbox', roles: ['admin'] },
+  { path: 'settings', label: 'Organisation settings', icon: 'tune', roles: ['admin'] },
 ];
 
 /** The area each role lands on after sign-in: the one its daily work starts from. */

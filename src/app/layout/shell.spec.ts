@@ -46,7 +46,7 @@ describe('Shell', () => {
 
   it('shows an admin every area', async () => {
     const harness = await openShellAs('admin');
-    expect(navTestIds(harness)).toEqual(['nav-matches', 'nav-stock', 'nav-builds', 'nav-shortfall', 'nav-admin', 'nav-outbox']);
+    expect(navTestIds(harness)).toEqual(['nav-matches', 'nav-stock', 'nav-builds', 'nav-shortfall', 'nav-admin', 'nav-outbox', 'nav-settings']);
   });
 
   it('shows the product, the user with role, and marks the current page', async () => {
