@@ -14,7 +14,7 @@ let b: BrowserSession;
 
 /** What product.md lets each role open, written out here rather than read from the app's code. */
 const NAV_BY_ROLE: Record<Role, string[]> = {
-  admin: ['matches', 'stock', 'builds', 'shortfall', 'admin', 'outbox'],
+  admin: ['matches', 'stock', 'builds', 'shortfall', 'admin', 'outbox', 'settings'],
   designer: ['matches', 'stock', 'builds', 'shortfall'],
   stores: ['matches', 'stock', 'builds'],
   purchasing: ['matches', 'stock', 'builds', 'shortfall'],
