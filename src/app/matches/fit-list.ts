@@ -65,6 +65,12 @@ export class FitList {
     return typeof value === 'number' && Number.isFinite(value) ? value : null;
   }
 
+  /** Flags of the fit that no element shows already (e.g. a rating checked on the whole fit). */
+  protected fitOnlyFlags(fit: Fit): string[] {
+    const shown = new Set(fit.elements.flatMap((element) => element.flags));
+    return fit.flags.filter((flag) => !shown.has(flag));
+  }
+
   protected chooseFit(rank: number): void {
     this.choose.emit(rank);
   }

@@ -16,10 +16,10 @@ import { type FieldReading, type MatchFormField, type MatchFormValue, readForm, 
 export const READING_DEBOUNCE_MS = 250;
 
 /** The objectives a designer may pick, with the words the form shows. */
-export const OBJECTIVE_CHOICES: readonly { value: Objective; label: string }[] = [
-  { value: 'worst-case', label: 'Worst case over tolerances' },
-  { value: 'nominal', label: 'Nominal values at f0' },
-  { value: 'band', label: 'Across the band' },
+export const OBJECTIVE_CHOICES: readonly { value: Objective; label: string; hint: string }[] = [
+  { value: 'worst-case', label: 'Worst case', hint: 'Ranks fits by loss at the worst tolerance corner' },
+  { value: 'nominal', label: 'Nominal at f0', hint: 'Ranks fits by loss at f0 with nominal values' },
+  { value: 'band', label: 'Across the band', hint: 'Ranks fits by the largest loss across the band' },
 ];
 
 /** What a request field of a saved match holds, as form text. */
@@ -74,6 +74,10 @@ export class MatchForm {
     objective: 'worst-case' as Objective,
     location: '',
   });
+
+  private readonly objective = toSignal(this.form.controls.objective.valueChanges, { initialValue: this.form.controls.objective.value });
+  /** What the chosen objective ranks by. */
+  protected readonly objectiveHint = computed(() => OBJECTIVE_CHOICES.find((choice) => choice.value === this.objective())?.hint ?? '');
 
   /** Whether the designer has asked to solve (problems then show on untouched fields too). */
   private readonly attempted = signal(false);

@@ -116,7 +116,7 @@ export class TpgPlot {
     const lowest = Math.min(...ideal.tpgDb, ...(fit?.tpgDb ?? []));
     const yMin = Math.max(FLOOR_DB, Math.floor((lowest - 1) / 5) * 5);
     const datasets: ChartConfiguration<'line'>['data']['datasets'] = [
-      { label: 'Ideal network', data: points(ideal), borderColor: colours.ideal, backgroundColor: colours.ideal, borderWidth: 2, pointRadius: 0 },
+      { label: 'Ideal network', data: points(ideal), borderColor: colours.ideal, backgroundColor: colours.ideal, borderWidth: 2, pointRadius: 0, clip: false },
     ];
     if (fit) {
       datasets.push({ label: 'Chosen fit', data: points(fit), borderColor: colours.fit, backgroundColor: colours.fit, borderWidth: 2, borderDash: [6, 4], pointRadius: 0 });
@@ -147,6 +147,8 @@ export class TpgPlot {
         scales: {
           x: {
             type: 'linear',
+            min: ideal.frequenciesHz[0] / divisor,
+            max: ideal.frequenciesHz[ideal.frequenciesHz.length - 1] / divisor,
             title: { display: true, text: `Frequency (${unit})`, color: colours.text },
             grid: { color: colours.grid },
             ticks: { color: colours.text },
@@ -154,7 +156,7 @@ export class TpgPlot {
           y: {
             type: 'linear',
             min: yMin,
-            max: 0.5,
+            max: 0,
             title: { display: true, text: 'TPG (dB)', color: colours.text },
             grid: { color: colours.grid },
             ticks: { color: colours.text },
