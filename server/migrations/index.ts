@@ -7,6 +7,7 @@ import type { QueryInterface, Sequelize } from 'sequelize';
 import * as usersAndAudit from './20261202-0001-users-and-audit.js';
 import * as stock from './20261202-0002-stock.js';
 import * as mailAndUserTokens from './20261202-0003-mail-and-user-tokens.js';
+import * as buildsAndShortfall from './20261202-0005-builds-and-shortfall.js';
 
 interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -17,6 +18,7 @@ const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261202-0001-users-and-audit', module: usersAndAudit },
   { name: '20261202-0002-stock', module: stock },
   { name: '20261202-0003-mail-and-user-tokens', module: mailAndUserTokens },
+  { name: '20261202-0005-builds-and-shortfall', module: buildsAndShortfall },
 ];
 
 /** Builds the migrator for `sequelize`. */

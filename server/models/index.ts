@@ -7,10 +7,16 @@ import { StockImport } from './stock-import.js';
 import { StockImportChange } from './stock-import-change.js';
 import { OutboundMail } from './outbound-mail.js';
 import { UserToken } from './user-token.js';
+import { Build } from './build.js';
+import { BuildMatch } from './build-match.js';
+import { Reservation } from './reservation.js';
+import { ShortfallList } from './shortfall-list.js';
+import { ShortfallLine } from './shortfall-line.js';
 
 export { User, AuditEntry };
 export { Part, StockImport, StockImportChange };
 export { OutboundMail, UserToken };
+export { Build, BuildMatch, Reservation, ShortfallList, ShortfallLine };
 
 /** Initialises all models on `sequelize` (call once per instance, before the first query). */
 export function initModels(sequelize: Sequelize): void {
@@ -21,4 +27,9 @@ export function initModels(sequelize: Sequelize): void {
   StockImportChange.initModel(sequelize);
   OutboundMail.initModel(sequelize);
   UserToken.initModel(sequelize);
+  Build.initModel(sequelize);
+  BuildMatch.initModel(sequelize);
+  Reservation.initModel(sequelize);
+  ShortfallList.initModel(sequelize);
+  ShortfallLine.initModel(sequelize);
 }

@@ -60,8 +60,8 @@ export interface BuildMove {
   position: ElementPosition;
   from: string[];
   to: string;
-  /** Worst-case loss of the match with the chosen parts, dB. */
-  fromWorstCaseDb: number;
+  /** Worst-case loss of the match with the chosen parts, dB; null when the chosen part is not in stock at all. */
+  fromWorstCaseDb: number | null;
   /** Worst-case loss with the part moved to, dB. */
   toWorstCaseDb: number;
   /** Plain words, e.g. "TW-C0402-2P2 is short; moved to TW-C0402-2P4, worst case 0.21 dB instead of 0.18 dB". */
