@@ -20,6 +20,8 @@ import { stockRouter } from './routes/stock/stock-router.js';
 import { partsRouter } from './routes/parts/parts-router.js';
 import { invitationsRouter, setPasswordRouter } from './routes/invitations/invitations-router.js';
 import { outboxRouter } from './routes/outbox/outbox-router.js';
+import { buildsRouter } from './routes/builds/builds-router.js';
+import { shortfallRouter } from './routes/shortfall/shortfall-router.js';
 
 /** Builds the app on an open (models initialised, migrated) `sequelize`. */
 export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Logger): express.Express {
@@ -54,6 +56,8 @@ export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Lo
   app.use('/api/stock', stockRouter(ctx));
   app.use('/api/parts', partsRouter(ctx));
   app.use('/api/outbox', outboxRouter(ctx));
+  app.use('/api/builds', buildsRouter(ctx));
+  app.use('/api/shortfall', shortfallRouter(ctx));
 
   app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `No API route ${req.method} ${req.originalUrl}.`)));
 
