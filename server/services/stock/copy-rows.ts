@@ -21,12 +21,20 @@ const ROWS_PER_CHUNK = 2000;
  */
 export function copyField(value: CopyValue): string {
   if (value === null || value === undefined) return '\\N';
-  const text = typeof value === 'object' ? JSON.stringify(value) : String(value);
-  return text.replace(/[\\\t\n\r]/g, (c) => (c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r'));
+  if (typeof value === 'number' || typeof value === 'boolean') return String(value);
+  const text = typeof value === 'object' ? JSON.stringify(value) : value;
+  return NEEDS_ESCAPE.test(text) ? text.replace(ESCAPED, (c) => COPY_ESCAPES[c]) : text;
 }
 
-/** The raw pg client a Sequelize transaction runs on. */
-function clientOf(transaction: Transaction): pg.Client {
+const NEEDS_ESCAPE = /[\\\t\n\r]/;
+const ESCAPED = /[\\\t\n\r]/g;
+const COPY_ESCAPES: Readonly<Record<string, string>> = { '\\': '\\\\', '\t': '\\t', '\n': '\\n', '\r': '\\r' };
+
+/**
+ * The raw pg client a Sequelize transaction runs on, for COPY and for bulk queries whose results
+ * are too large for Sequelize's per-row processing. Queries on it run inside the transaction.
+ */
+export function clientOf(transaction: Transaction): pg.Client {
   const client = (transaction as unknown as { connection?: pg.Client }).connection;
   if (!client || typeof client.query !== 'function') throw new Error('copyRows: the transaction has no pg connection yet.');
   return client;

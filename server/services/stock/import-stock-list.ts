@@ -1,22 +1,36 @@
 /**
  * The stock-list import (stock-csv.md, "What an upload does"): read and check every row, then apply
- * all of it in one transaction, or nothing. Imports take one transaction-level advisory lock, so two
- * uploads at once run one after the other and each sees the other's result; the parts it touches are
- * also row-locked against other writers (builds). Writes are bulk: COPY into a temporary table, one
- * INSERT ... ON CONFLICT DO UPDATE, one UPDATE for zeroed parts, one INSERT of the change records.
+ * all of it in one transaction, or nothing. Every import takes one transaction-level advisory lock
+ * ({@link lockStockQuantities}), so two uploads at once run one after the other and each sees the
+ * other's result; anything else that writes quantities on hand takes the same lock. Writes are bulk
+ * and never a query per row: new parts are COPYed straight into `parts` and their change records
+ * made by one INSERT ... SELECT; changed parts are COPYed into a temporary table and updated by one
+ * UPDATE ... FROM; zeroed parts by one UPDATE; their change records by one COPY.
  */
 import { createHash } from 'node:crypto';
 import { Decimal } from 'decimal.js';
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import { type Sequelize, type Transaction } from 'sequelize';
 import type { StockFileProblem, StockImportMode, StockImportReport } from '../../../shared/api/stock.js';
 import { StockImport } from '../../models/index.js';
 import { recordAudit } from '../audit.js';
-import { copyRows } from './copy-rows.js';
+import { conflict } from '../../errors.js';
+import { clientOf, copyRows, type CopyValue } from './copy-rows.js';
 import { PART_ROW_COLUMNS, toleranceOf, type PartRow } from './present-part.js';
 import { fieldsOfColumns, partKey, readStockFile, type CheckedRow, type PartFields, type StockFileReading } from './read-stock-file.js';
 
 /** Key of the advisory lock every import holds for its transaction ("SMSTOCK" in ASCII). */
 export const STOCK_IMPORT_LOCK_KEY = 0x534d53544f434b;
+
+/**
+ * Takes the stock lock for the rest of `transaction`: imports hold it, and so must any other code
+ * that changes quantities on hand (e.g. receiving parts), so their reads and writes never interleave.
+ */
+export async function lockStockQuantities(sequelize: Sequelize, transaction: Transaction): Promise<void> {
+  await sequelize.query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: STOCK_IMPORT_LOCK_KEY }, transaction });
+}
+
+/** PostgreSQL's unique_violation (Appendix A, error codes). */
+const UNIQUE_VIOLATION = '23505';
 
 /** Most rejected rows and warnings a report (and the history) lists; the counts stay exact. */
 export const MAX_REPORTED_PROBLEMS = 1000;
@@ -63,8 +77,8 @@ const COMPARED: readonly ComparedField[] = [
   { field: 'description', api: 'description', column: 'description' },
 ];
 
-/** Columns of the temporary table the file's created and updated parts are copied into. */
-const STAGE_COLUMNS = [
+/** The columns of `parts` an import writes, in {@link partCells} order. */
+const PART_COLUMNS = [
   'part_number',
   'location',
   'kind',
@@ -83,15 +97,19 @@ const STAGE_COLUMNS = [
   'unit_cost',
   'manufacturer_part',
   'description',
-  'change',
-  'quantity_before',
-  'before',
-  'after',
 ] as const;
+
+/** Column types of the temporary table changed parts are copied into (besides `id`). */
+const STAGE_COLUMN_TYPES = `part_number TEXT, location TEXT, kind TEXT, value_si DOUBLE PRECISION, tolerance_kind TEXT,
+  tolerance_value DOUBLE PRECISION, srf_hz DOUBLE PRECISION, q DOUBLE PRECISION, q_frequency_hz DOUBLE PRECISION,
+  esr_ohm DOUBLE PRECISION, quantity INTEGER, package TEXT, voltage_rating_v DOUBLE PRECISION,
+  current_rating_a DOUBLE PRECISION, series TEXT, unit_cost NUMERIC(12, 4), manufacturer_part TEXT, description TEXT`;
 
 /** What the file does to one part. */
 interface PlannedWrite {
   change: 'created' | 'updated';
+  /** The existing part's id; null for a part the import creates. */
+  partId: number | null;
   part: PartFields;
   quantityBefore: number | null;
   before: Record<string, unknown> | null;
@@ -127,13 +145,10 @@ export async function importStockList(sequelize: Sequelize, upload: StockUpload)
 
   const transaction = await sequelize.transaction();
   try {
-    await sequelize.query('SELECT pg_advisory_xact_lock(:key)', { replacements: { key: STOCK_IMPORT_LOCK_KEY }, transaction });
+    await lockStockQuantities(sequelize, transaction);
+    // Under the lock no other import or quantity writer runs, so a plain read is the state to compare with.
     const existing = locations.length
-      ? await sequelize.query<PartRow>(`SELECT ${PART_ROW_COLUMNS} FROM parts WHERE location IN (:locations) ORDER BY id FOR UPDATE`, {
-          replacements: { locations },
-          type: QueryTypes.SELECT,
-          transaction,
-        })
+      ? (await clientOf(transaction).query<PartRow>(`SELECT ${PART_ROW_COLUMNS} FROM parts WHERE location = ANY($1::text[])`, [locations])).rows
       : [];
     const plan = planImport(reading, existing, upload.mode);
     const warnings = [...reading.warnings, ...plan.warnings];
@@ -146,7 +161,7 @@ export async function importStockList(sequelize: Sequelize, upload: StockUpload)
     const report = reportOf(upload, reading, counts, warnings, null, !upload.dryRun);
     const entry = await StockImport.create(historyEntry(upload, reading, sha256, locations, 'applied', report, warnings), { transaction });
     const importId = Number(entry.id);
-    await applyPlan(sequelize, transaction, importId, plan);
+    await applyPlan(transaction, importId, plan);
     await recordAudit(
       {
         actorId: upload.userId,
@@ -166,6 +181,9 @@ export async function importStockList(sequelize: Sequelize, upload: StockUpload)
     return { status: 200, report };
   } catch (error) {
     await transaction.rollback().catch(() => undefined);
+    if ((error as { code?: string }).code === UNIQUE_VIOLATION) {
+      throw conflict('A part in the file was created by someone else while this import ran; nothing was applied. Upload the file again.');
+    }
     throw error;
   }
 }
@@ -183,27 +201,28 @@ function planImport(reading: StockFileReading, existing: PartRow[], mode: StockI
     inFile.add(key);
     const current = byKey.get(key);
     if (!current) {
-      plan.writes.push({ change: 'created', part: row.part, quantityBefore: null, before: null, after: null });
+      plan.writes.push({ change: 'created', partId: null, part: row.part, quantityBefore: null, before: null, after: null });
       continue;
     }
-    const merged = mergeIntoCurrent(current, row.part, spoken);
-    const before: Record<string, unknown> = {};
-    const after: Record<string, unknown> = {};
+    let before: Record<string, unknown> | null = null;
+    let after: Record<string, unknown> | null = null;
     for (const c of compared) {
       if (sameValue(c.field, current[c.column], row.part[c.field])) continue;
+      before ??= {};
+      after ??= {};
       if (c.api === 'tolerance') {
         before.tolerance = toleranceOf(current.tolerance_kind, current.tolerance_value);
-        after.tolerance = toleranceOf(merged.toleranceKind, merged.toleranceValue);
+        after.tolerance = toleranceOf(row.part.toleranceKind, row.part.toleranceValue);
       } else {
         before[c.api] = current[c.column];
         after[c.api] = row.part[c.field];
       }
     }
-    const quantityChanged = current.quantity !== row.part.quantity;
-    if (!quantityChanged && Object.keys(after).length === 0) {
+    if (current.quantity === row.part.quantity && after === null) {
       plan.unchanged += 1;
     } else {
-      plan.writes.push({ change: 'updated', part: merged, quantityBefore: current.quantity, before, after });
+      const merged = mergeIntoCurrent(current, row.part, spoken);
+      plan.writes.push({ change: 'updated', partId: current.id, part: merged, quantityBefore: current.quantity, before: before ?? {}, after: after ?? {} });
     }
     warnIfBelowReserved(plan, row, current);
   }
@@ -258,65 +277,56 @@ function mergeIntoCurrent(current: PartRow, part: PartFields, spoken: ReadonlySe
 
 function sameValue(field: keyof PartFields, stored: unknown, incoming: unknown): boolean {
   if (stored === null || incoming === null) return stored === incoming;
-  if (field === 'unitCost') return new Decimal(stored as string).equals(incoming as string);
+  // NUMERIC(12,4) comes back as "0.0120"; the file's cost is already canonical ("0.012").
+  if (field === 'unitCost') return canonicalDecimalText(stored as string) === incoming || new Decimal(stored as string).equals(incoming as string);
   return stored === incoming;
 }
 
-/** Writes the plan inside `transaction`: bulk upsert, bulk zeroing, change records. */
-async function applyPlan(sequelize: Sequelize, transaction: Transaction, importId: number, plan: ImportPlan): Promise<void> {
-  if (plan.writes.length > 0) {
-    await sequelize.query(
-      `CREATE TEMPORARY TABLE stock_import_stage (
-         part_number TEXT, location TEXT, kind TEXT, value_si DOUBLE PRECISION, tolerance_kind TEXT,
-         tolerance_value DOUBLE PRECISION, srf_hz DOUBLE PRECISION, q DOUBLE PRECISION, q_frequency_hz DOUBLE PRECISION,
-         esr_ohm DOUBLE PRECISION, quantity INTEGER, package TEXT, voltage_rating_v DOUBLE PRECISION,
-         current_rating_a DOUBLE PRECISION, series TEXT, unit_cost NUMERIC(12, 4), manufacturer_part TEXT, description TEXT,
-         change TEXT, quantity_before INTEGER, before JSONB, after JSONB
-       ) ON COMMIT DROP`,
-      { transaction },
+/** `"0.0120"` -> `"0.012"`, `"3.0000"` -> `"3"`: trailing fraction zeros dropped, as Decimal#toFixed() writes it. */
+function canonicalDecimalText(text: string): string {
+  return text.includes('.') ? text.replace(/0+$/, '').replace(/\.$/, '') : text;
+}
+
+/** Writes the plan inside `transaction`: new parts, changed parts, zeroed parts, then every change record. */
+async function applyPlan(transaction: Transaction, importId: number, plan: ImportPlan): Promise<void> {
+  const client = clientOf(transaction);
+  const created = plan.writes.filter((w) => w.change === 'created');
+  const updated = plan.writes.filter((w) => w.change === 'updated');
+
+  if (created.length > 0) {
+    // Straight into parts (ids from the column default), then their change records from what landed.
+    await copyRows(transaction, 'parts', [...PART_COLUMNS, 'last_import_id'], created.map((w) => [...partCells(w.part), importId]));
+    await client.query(
+      `INSERT INTO stock_import_changes (import_id, part_id, change, quantity_before, quantity_after)
+       SELECT $1, id, 'created', NULL, quantity FROM parts WHERE last_import_id = $1`,
+      [importId],
     );
-    await copyRows(
-      transaction,
-      'stock_import_stage',
-      STAGE_COLUMNS,
-      plan.writes.map((w) => {
-        const p = w.part;
-        return [
-          p.partNumber, p.location, p.kind, p.valueSi, p.toleranceKind, p.toleranceValue, p.srfHz, p.q, p.qFrequencyHz,
-          p.esrOhm, p.quantity, p.package, p.voltageRatingV, p.currentRatingA, p.series, p.unitCost, p.manufacturerPart,
-          p.description, w.change, w.quantityBefore, w.before, w.after,
-        ];
-      }),
-    );
-    const partColumns = STAGE_COLUMNS.slice(0, 18);
-    await sequelize.query(
-      `INSERT INTO parts (${partColumns.join(', ')}, last_import_id, created_at, updated_at)
-       SELECT ${partColumns.join(', ')}, :importId, now(), now() FROM stock_import_stage
-       ON CONFLICT (part_number, location) DO UPDATE SET
-         ${partColumns.slice(2).map((c) => `${c} = EXCLUDED.${c}`).join(', ')},
-         last_import_id = EXCLUDED.last_import_id, updated_at = now()`,
-      { replacements: { importId }, transaction },
-    );
-    await sequelize.query(
-      `INSERT INTO stock_import_changes (import_id, part_id, change, quantity_before, quantity_after, before, after)
-       SELECT :importId, p.id, s.change, s.quantity_before, s.quantity, s.before, s.after
-       FROM stock_import_stage s JOIN parts p ON p.part_number = s.part_number AND p.location = s.location`,
-      { replacements: { importId }, transaction },
+  }
+  if (updated.length > 0) {
+    await client.query(`CREATE TEMPORARY TABLE stock_import_stage (id INTEGER PRIMARY KEY, ${STAGE_COLUMN_TYPES}) ON COMMIT DROP`);
+    await copyRows(transaction, 'stock_import_stage', ['id', ...PART_COLUMNS], updated.map((w) => [w.partId, ...partCells(w.part)]));
+    await client.query(
+      `UPDATE parts p SET ${PART_COLUMNS.slice(2).map((c) => `${c} = s.${c}`).join(', ')}, last_import_id = $1, updated_at = now()
+       FROM stock_import_stage s WHERE p.id = s.id`,
+      [importId],
     );
   }
   if (plan.zeroed.length > 0) {
-    const ids = plan.zeroed.map((z) => z.id);
-    const before = plan.zeroed.map((z) => z.quantityBefore);
-    await sequelize.query('UPDATE parts SET quantity = 0, last_import_id = :importId, updated_at = now() WHERE id = ANY(ARRAY[:ids]::int[])', {
-      replacements: { importId, ids },
-      transaction,
-    });
-    await sequelize.query(
-      `INSERT INTO stock_import_changes (import_id, part_id, change, quantity_before, quantity_after)
-       SELECT :importId, z.id, 'zeroed', z.before, 0 FROM unnest(ARRAY[:ids]::int[], ARRAY[:before]::int[]) AS z(id, before)`,
-      { replacements: { importId, ids, before }, transaction },
-    );
+    await client.query('UPDATE parts SET quantity = 0, last_import_id = $1, updated_at = now() WHERE id = ANY($2::int[])', [importId, plan.zeroed.map((z) => z.id)]);
   }
+  const changeRows: CopyValue[][] = updated.map((w) => [importId, w.partId, 'updated', w.quantityBefore, w.part.quantity, w.before, w.after]);
+  for (const z of plan.zeroed) changeRows.push([importId, z.id, 'zeroed', z.quantityBefore, 0, null, null]);
+  if (changeRows.length > 0) {
+    await copyRows(transaction, 'stock_import_changes', ['import_id', 'part_id', 'change', 'quantity_before', 'quantity_after', 'before', 'after'], changeRows);
+  }
+}
+
+/** One part's cells in {@link PART_COLUMNS} order. */
+function partCells(p: PartFields): CopyValue[] {
+  return [
+    p.partNumber, p.location, p.kind, p.valueSi, p.toleranceKind, p.toleranceValue, p.srfHz, p.q, p.qFrequencyHz, p.esrOhm,
+    p.quantity, p.package, p.voltageRatingV, p.currentRatingA, p.series, p.unitCost, p.manufacturerPart, p.description,
+  ];
 }
 
 function capped(problems: StockFileProblem[]): StockFileProblem[] {

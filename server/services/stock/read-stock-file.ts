@@ -179,6 +179,9 @@ export function readStockFile(bytes: Uint8Array): StockFileReading {
   }
   if (quoteErrors.has(headerIndex)) return fileProblem(quoteErrors.get(headerIndex)!);
 
+  const indexOfColumn = new Map<StockColumn, number>();
+  columnAt.forEach((column, i) => column !== null && indexOfColumn.set(column, i));
+  const checker = new RowChecker(indexOfColumn, result.warnings);
   const seen = new Map<string, number>();
   const unnamedWithData = new Set<number>();
   for (let index = headerIndex + 1; index < records.length; index += 1) {
@@ -203,11 +206,7 @@ export function readStockFile(bytes: Uint8Array): StockFileReading {
     }
     for (const i of unnamed) if ((cells[i] ?? '').trim() !== '') unnamedWithData.add(i);
 
-    const cellOf = (column: StockColumn): string => {
-      const at = columnAt.indexOf(column);
-      return at < 0 ? '' : (cells[at] ?? '');
-    };
-    const checked = checkRow(cellOf, line, problems, result.warnings);
+    const checked = checker.check(cells, line, problems);
     if (checked.keyReadable) {
       const key = partKey(checked.partNumber, checked.location);
       const first = seen.get(key);
@@ -215,7 +214,7 @@ export function readStockFile(bytes: Uint8Array): StockFileReading {
         problems.push({
           line,
           column: 'part_number',
-          value: cellOf('part_number'),
+          value: checker.cell('part_number'),
           message: `part_number "${checked.partNumber}" at location "${checked.location}" is already on line ${first}; each part may appear once per location`,
         });
       } else {
@@ -243,99 +242,157 @@ interface RowCheck {
   part?: PartFields;
 }
 
-/** Checks one data row; pushes its problems and warnings; returns the part when it has none. */
-function checkRow(cellOf: (column: StockColumn) => string, line: number, problems: StockFileProblem[], warnings: StockFileProblem[]): RowCheck {
-  const before = problems.length;
-  const read = <T>(column: StockColumn, reader: (cell: string) => T, required = false): T | null => {
-    const raw = cellOf(column);
+/** A cell reader that takes one extra argument (the row's kind, a column name). */
+type CellReader<A, T> = (cell: string, argument: A) => T;
+
+const readTextCell: CellReader<keyof typeof TEXT_LIMITS, string> = (cell, column) => readText(unescapeFormulaCell(cell.trim()), column, TEXT_LIMITS[column]);
+const readValueCell: CellReader<PartKind, number> = (cell, kind) => readPartValue(cell, kind);
+const readFrequencyCell: CellReader<'srf' | 'q_freq', number> = (cell, column) => readFrequency(cell, column);
+const readRatingCell: CellReader<'voltage_rating' | 'current_rating', number> = (cell, column) => readRating(cell, column);
+const readPlain = <T>(reader: (cell: string) => T): CellReader<null, T> => (cell) => reader(cell);
+const readKindCell = readPlain(readKind);
+const readQCell = readPlain(readQ);
+const readEsrCell = readPlain(readEsr);
+const readQuantityCell = readPlain(readQuantity);
+const readSeriesCell = readPlain(readSeries);
+const readUnitCostCell = readPlain(readUnitCost);
+
+/**
+ * Checks data rows one at a time; one instance per file, so reading a row allocates no closures
+ * (100,000-row files spend their time in these few functions).
+ */
+class RowChecker {
+  private cells: string[] = [];
+  private line = 0;
+  private problems: StockFileProblem[] = [];
+
+  constructor(
+    private readonly indexOfColumn: ReadonlyMap<StockColumn, number>,
+    private readonly warnings: StockFileProblem[],
+  ) {}
+
+  /** The raw cell of `column` in the current row ('' when the file has no such column). */
+  cell(column: StockColumn): string {
+    const at = this.indexOfColumn.get(column);
+    return at === undefined ? '' : (this.cells[at] ?? '');
+  }
+
+  private read<A, T>(column: StockColumn, reader: CellReader<A, T>, argument: A, required: boolean): T | null {
+    const raw = this.cell(column);
     if (raw.trim() === '') {
-      if (required) problems.push({ line, column, value: raw, message: `${column} is required` });
+      if (required) this.problems.push({ line: this.line, column, value: raw, message: `${column} is required` });
       return null;
     }
     try {
-      return reader(raw);
+      return reader(raw, argument);
     } catch (error) {
       if (!(error instanceof CellProblem)) throw error;
-      problems.push({ line, column, value: raw, message: error.message });
+      this.problems.push({ line: this.line, column, value: raw, message: error.message });
       return null;
     }
-  };
-  const text = (column: keyof typeof TEXT_LIMITS) => (cell: string) => readText(unescapeFormulaCell(cell.trim()), column, TEXT_LIMITS[column]);
-
-  const partNumber = read('part_number', text('part_number'), true);
-  const location = read('location', text('location')) ?? DEFAULT_LOCATION;
-  const kind = read('kind', readKind, true);
-  const valueSi = kind ? read('value', (cell) => readPartValue(cell, kind), true) : null;
-  if (!kind && cellOf('value').trim() === '') problems.push({ line, column: 'value', value: '', message: 'value is required' });
-  const tolerance = kind && valueSi !== null ? read('tolerance', (cell) => readTolerance(cell, kind, valueSi), true) : null;
-  if ((!kind || valueSi === null) && cellOf('tolerance').trim() === '') problems.push({ line, column: 'tolerance', value: '', message: 'tolerance is required' });
-  const srfHz = read('srf', (cell) => readFrequency(cell, 'srf'));
-  const q = read('q', readQ);
-  const qFrequencyHz = read('q_freq', (cell) => readFrequency(cell, 'q_freq'));
-  if (q !== null && qFrequencyHz === null && cellOf('q_freq').trim() === '') {
-    problems.push({ line, column: 'q_freq', value: '', message: `q_freq is required with q: give the frequency Q was measured at, like 100MHz` });
-  }
-  if (q === null && qFrequencyHz !== null && cellOf('q').trim() === '') {
-    problems.push({ line, column: 'q', value: '', message: 'q_freq is given but q is blank: give the Q measured at that frequency, or leave both blank' });
-  }
-  const esrOhm = read('esr', readEsr);
-  const quantity = read('quantity', readQuantity, true);
-  const pkg = read('package', text('package'));
-  const voltageRatingV = read('voltage_rating', (cell) => readRating(cell, 'voltage_rating'));
-  const currentRatingA = read('current_rating', (cell) => readRating(cell, 'current_rating'));
-  if (kind === 'inductor' && voltageRatingV !== null) {
-    problems.push({ line, column: 'voltage_rating', value: cellOf('voltage_rating'), message: 'voltage_rating is for capacitors, but this row is an inductor: leave it blank or fix the kind' });
-  }
-  if (kind === 'capacitor' && currentRatingA !== null) {
-    problems.push({ line, column: 'current_rating', value: cellOf('current_rating'), message: 'current_rating is for inductors, but this row is a capacitor: leave it blank or fix the kind' });
-  }
-  const series = read('series', readSeries);
-  const unitCost = read('unit_cost', readUnitCost);
-  const manufacturerPart = read('manufacturer_part', text('manufacturer_part'));
-  const description = read('description', text('description'));
-
-  if (series && kind && valueSi !== null && !isStandardValue(valueSi, series)) {
-    const quantityName = QUANTITY_OF_KIND[kind];
-    warnings.push({
-      line,
-      column: 'value',
-      value: cellOf('value'),
-      message: `${formatValue(valueSi, quantityName)} is not an ${series} value (the nearest ${series} value is ${formatValue(nearestStandardValue(valueSi, series), quantityName)})`,
-    });
-  }
-  if (pkg !== null && /^(201|402|603|805)$/.test(pkg)) {
-    warnings.push({ line, column: 'package', value: cellOf('package'), message: `package "${pkg}" looks like 0${pkg} with its leading zero lost by a spreadsheet; it is stored as written` });
   }
 
-  const keyReadable = partNumber !== null;
-  const result: RowCheck = { keyReadable, partNumber: partNumber ?? '', location };
-  if (problems.length === before) {
-    result.part = {
-      partNumber: partNumber!,
-      location,
-      kind: kind!,
-      valueSi: valueSi!,
-      toleranceKind: tolerance!.mode,
-      toleranceValue: tolerance!.mode === 'relative' ? tolerance!.fraction : tolerance!.deltaSi,
-      srfHz,
-      q,
-      qFrequencyHz,
-      esrOhm,
-      quantity: quantity!,
-      package: pkg,
-      voltageRatingV,
-      currentRatingA,
-      series,
-      unitCost,
-      manufacturerPart,
-      description,
-    };
+  private problem(column: string, value: string, message: string): void {
+    this.problems.push({ line: this.line, column, value, message });
   }
-  return result;
+
+  /** Checks one row; pushes its problems onto `problems` and its warnings; returns the part when it has none. */
+  check(cells: string[], line: number, problems: StockFileProblem[]): RowCheck {
+    this.cells = cells;
+    this.line = line;
+    this.problems = problems;
+    const before = problems.length;
+
+    const partNumber = this.read('part_number', readTextCell, 'part_number', true);
+    const location = this.read('location', readTextCell, 'location', false) ?? DEFAULT_LOCATION;
+    const kind = this.read('kind', readKindCell, null, true);
+    const valueSi = kind ? this.read('value', readValueCell, kind, true) : null;
+    if (!kind && this.cell('value').trim() === '') this.problem('value', '', 'value is required');
+    const tolerance = kind && valueSi !== null ? this.read('tolerance', (cell: string) => readTolerance(cell, kind, valueSi), null, true) : null;
+    if ((!kind || valueSi === null) && this.cell('tolerance').trim() === '') this.problem('tolerance', '', 'tolerance is required');
+    const srfHz = this.read('srf', readFrequencyCell, 'srf', false);
+    const q = this.read('q', readQCell, null, false);
+    const qFrequencyHz = this.read('q_freq', readFrequencyCell, 'q_freq', false);
+    if (q !== null && qFrequencyHz === null && this.cell('q_freq').trim() === '') {
+      this.problem('q_freq', '', 'q_freq is required with q: give the frequency Q was measured at, like 100MHz');
+    }
+    if (q === null && qFrequencyHz !== null && this.cell('q').trim() === '') {
+      this.problem('q', '', 'q_freq is given but q is blank: give the Q measured at that frequency, or leave both blank');
+    }
+    const esrOhm = this.read('esr', readEsrCell, null, false);
+    const quantity = this.read('quantity', readQuantityCell, null, true);
+    const pkg = this.read('package', readTextCell, 'package', false);
+    const voltageRatingV = this.read('voltage_rating', readRatingCell, 'voltage_rating', false);
+    const currentRatingA = this.read('current_rating', readRatingCell, 'current_rating', false);
+    if (kind === 'inductor' && voltageRatingV !== null) {
+      this.problem('voltage_rating', this.cell('voltage_rating'), 'voltage_rating is for capacitors, but this row is an inductor: leave it blank or fix the kind');
+    }
+    if (kind === 'capacitor' && currentRatingA !== null) {
+      this.problem('current_rating', this.cell('current_rating'), 'current_rating is for inductors, but this row is a capacitor: leave it blank or fix the kind');
+    }
+    const series = this.read('series', readSeriesCell, null, false);
+    const unitCost = this.read('unit_cost', readUnitCostCell, null, false);
+    const manufacturerPart = this.read('manufacturer_part', readTextCell, 'manufacturer_part', false);
+    const description = this.read('description', readTextCell, 'description', false);
+
+    if (series && kind && valueSi !== null && !isSeriesMember(valueSi, series)) {
+      const quantityName = QUANTITY_OF_KIND[kind];
+      this.warnings.push({
+        line,
+        column: 'value',
+        value: this.cell('value'),
+        message: `${formatValue(valueSi, quantityName)} is not an ${series} value (the nearest ${series} value is ${formatValue(nearestStandardValue(valueSi, series), quantityName)})`,
+      });
+    }
+    if (pkg !== null && /^(201|402|603|805)$/.test(pkg)) {
+      this.warnings.push({ line, column: 'package', value: this.cell('package'), message: `package "${pkg}" looks like 0${pkg} with its leading zero lost by a spreadsheet; it is stored as written` });
+    }
+
+    const result: RowCheck = { keyReadable: partNumber !== null, partNumber: partNumber ?? '', location };
+    if (problems.length === before) {
+      result.part = {
+        partNumber: partNumber!,
+        location,
+        kind: kind!,
+        valueSi: valueSi!,
+        toleranceKind: tolerance!.mode,
+        toleranceValue: tolerance!.mode === 'relative' ? tolerance!.fraction : tolerance!.deltaSi,
+        srfHz,
+        q,
+        qFrequencyHz,
+        esrOhm,
+        quantity: quantity!,
+        package: pkg,
+        voltageRatingV,
+        currentRatingA,
+        series,
+        unitCost,
+        manufacturerPart,
+        description,
+      };
+    }
+    return result;
+  }
+}
+
+/** Series membership, remembered per (series, value): stock lists repeat values. */
+const seriesMemberships = new Map<string, boolean>();
+const MEMBERSHIP_MEMO_LIMIT = 20_000;
+
+function isSeriesMember(valueSi: number, series: ESeriesName): boolean {
+  const key = `${series} ${valueSi}`;
+  let member = seriesMemberships.get(key);
+  if (member === undefined) {
+    member = isStandardValue(valueSi, series);
+    if (seriesMemberships.size >= MEMBERSHIP_MEMO_LIMIT) seriesMemberships.clear();
+    seriesMemberships.set(key, member);
+  }
+  return member;
 }
 
 function isBlank(cells: string[]): boolean {
-  return cells.every((cell) => cell.trim() === '');
+  for (const cell of cells) if (cell.trim() !== '') return false;
+  return true;
 }
 
 /**

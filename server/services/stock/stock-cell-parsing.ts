@@ -22,6 +22,32 @@ export class CellProblem extends Error {
   }
 }
 
+/** Most distinct cells remembered per reader before the memory is cleared. */
+const MEMO_LIMIT = 20_000;
+
+/**
+ * Remembers a pure reader's answer (value or problem) per cell text: stock lists repeat the same
+ * value strings thousands of times (`4.7pF`, `J`, `50V`), and reading them is the costly part.
+ */
+function memoized<T>(read: (cell: string) => T): (cell: string) => T {
+  const memory = new Map<string, { value: T } | { problem: string }>();
+  return (cell) => {
+    let known = memory.get(cell);
+    if (!known) {
+      try {
+        known = { value: read(cell) };
+      } catch (error) {
+        if (!(error instanceof CellProblem)) throw error;
+        known = { problem: error.message };
+      }
+      if (memory.size >= MEMO_LIMIT) memory.clear();
+      memory.set(cell, known);
+    }
+    if ('problem' in known) throw new CellProblem(known.problem);
+    return known.value;
+  };
+}
+
 /** What each kind's value is. */
 export const QUANTITY_OF_KIND: Readonly<Record<PartKind, 'capacitance' | 'inductance'>> = { capacitor: 'capacitance', inductor: 'inductance' };
 
@@ -88,6 +114,15 @@ function checkRange(valueSi: number, quantity: keyof typeof RANGES, column: stri
  * if given, must fit `kind`.
  */
 export function readPartValue(cell: string, kind: PartKind): number {
+  return PART_VALUE_READERS[kind](cell);
+}
+
+const PART_VALUE_READERS: Readonly<Record<PartKind, (cell: string) => number>> = {
+  capacitor: memoized((cell) => readPartValueOnce(cell, 'capacitor')),
+  inductor: memoized((cell) => readPartValueOnce(cell, 'inductor')),
+};
+
+function readPartValueOnce(cell: string, kind: PartKind): number {
   const quantity = QUANTITY_OF_KIND[kind];
   let valueSi: number;
   try {
@@ -120,19 +155,7 @@ function readsAs(cell: string, quantity: Quantity): boolean {
  * @returns relative as a fraction (5 % -> 0.05), absolute in F or H
  */
 export function readTolerance(cell: string, kind: PartKind, valueSi: number): Tolerance {
-  if (/^\s*-/.test(cell)) throw new CellProblem(`tolerance ${quote(cell)} is negative; tolerances are symmetric: write it like ±5 % or ±0.1pF`);
-  let tolerance: Tolerance;
-  try {
-    tolerance = parseTolerance(cell, kind, 'tolerance');
-  } catch (error) {
-    if (!isEngineInputError(error)) throw error;
-    const other: PartKind = kind === 'capacitor' ? 'inductor' : 'capacitor';
-    const amount = cell.trim().replace(/^(±|\+\/-|\+-)\s*/, '');
-    if (/[a-zA-Zµμ]{2,}/.test(amount) && readsAs(amount, QUANTITY_OF_KIND[other])) {
-      throw new CellProblem(`tolerance ${quote(cell)} is ${other === 'inductor' ? 'an inductance (H)' : 'a capacitance (F)'}, but the row's kind is ${kind}: write it like ${kind === 'capacitor' ? '±0.1pF' : '±0.2nH'} or 5%`);
-    }
-    throw new CellProblem(error.message);
-  }
+  const tolerance = TOLERANCE_READERS[kind](cell);
   const amount = tolerance.mode === 'relative' ? tolerance.fraction : tolerance.deltaSi;
   if (!(amount > 0)) throw new CellProblem(`tolerance ${quote(cell)} must be greater than zero`);
   if (tolerance.mode === 'absolute' && !(tolerance.deltaSi < valueSi)) {
@@ -142,8 +165,38 @@ export function readTolerance(cell: string, kind: PartKind, valueSi: number): To
   return tolerance;
 }
 
+/** The form of a tolerance cell, read once per distinct text and kind. */
+const TOLERANCE_READERS: Readonly<Record<PartKind, (cell: string) => Tolerance>> = {
+  capacitor: memoized((cell) => readToleranceForm(cell, 'capacitor')),
+  inductor: memoized((cell) => readToleranceForm(cell, 'inductor')),
+};
+
+function readToleranceForm(cell: string, kind: PartKind): Tolerance {
+  if (/^\s*-/.test(cell)) throw new CellProblem(`tolerance ${quote(cell)} is negative; tolerances are symmetric: write it like ±5 % or ±0.1pF`);
+  try {
+    return parseTolerance(cell, kind, 'tolerance');
+  } catch (error) {
+    if (!isEngineInputError(error)) throw error;
+    const other: PartKind = kind === 'capacitor' ? 'inductor' : 'capacitor';
+    const amount = cell.trim().replace(/^(±|\+\/-|\+-)\s*/, '');
+    if (/[a-zA-Zµμ]{2,}/.test(amount) && readsAs(amount, QUANTITY_OF_KIND[other])) {
+      throw new CellProblem(`tolerance ${quote(cell)} is ${other === 'inductor' ? 'an inductance (H)' : 'a capacitance (F)'}, but the row's kind is ${kind}: write it like ${kind === 'capacitor' ? '±0.1pF' : '±0.2nH'} or 5%`);
+    }
+    throw new CellProblem(error.message);
+  }
+}
+
 /** Reads a frequency (`6GHz`, `6.2 G`, `6.2e9`, `100MHz`) in Hz, for `srf` and `q_freq`. */
 export function readFrequency(cell: string, column: 'srf' | 'q_freq'): number {
+  return FREQUENCY_READERS[column](cell);
+}
+
+const FREQUENCY_READERS = {
+  srf: memoized((cell) => readFrequencyOnce(cell, 'srf')),
+  q_freq: memoized((cell) => readFrequencyOnce(cell, 'q_freq')),
+} as const;
+
+function readFrequencyOnce(cell: string, column: 'srf' | 'q_freq'): number {
   const valueSi = engineValue(cell, 'frequency', column);
   checkRange(valueSi, 'frequency', column, cell);
   return valueSi;
@@ -162,7 +215,9 @@ export function readQ(cell: string): number {
 }
 
 /** Reads a series loss resistance (`0.3`, `0.3ohm`, `300m`) in ohms. */
-export function readEsr(cell: string): number {
+export const readEsr: (cell: string) => number = memoized(readEsrOnce);
+
+function readEsrOnce(cell: string): number {
   const valueSi = engineValue(cell, 'resistance', 'esr');
   if (!(valueSi > 0)) throw new CellProblem(`esr ${quote(cell)} must be greater than zero; leave it blank when unknown`);
   checkRange(valueSi, 'resistance', 'esr', cell);
@@ -171,6 +226,15 @@ export function readEsr(cell: string): number {
 
 /** Reads a rating: `50V` (capacitors) or `300mA` (inductors). */
 export function readRating(cell: string, column: 'voltage_rating' | 'current_rating'): number {
+  return RATING_READERS[column](cell);
+}
+
+const RATING_READERS = {
+  voltage_rating: memoized((cell) => readRatingOnce(cell, 'voltage_rating')),
+  current_rating: memoized((cell) => readRatingOnce(cell, 'current_rating')),
+} as const;
+
+function readRatingOnce(cell: string, column: 'voltage_rating' | 'current_rating'): number {
   const quantity = column === 'voltage_rating' ? 'voltage' : 'current';
   const valueSi = engineValue(cell, quantity, column);
   checkRange(valueSi, quantity, column, cell);
@@ -202,7 +266,9 @@ export function readSeries(cell: string): ESeriesName {
  * decimal mark (DECIMAL(12,4), exact with decimal.js).
  * @returns the canonical decimal string (`"0.0120"` -> `"0.012"`)
  */
-export function readUnitCost(cell: string): string {
+export const readUnitCost: (cell: string) => string = memoized(readUnitCostOnce);
+
+function readUnitCostOnce(cell: string): string {
   const text = cell.trim();
   if (/^\d+,\d+$/.test(text)) throw new CellProblem(`unit_cost ${quote(cell)} uses a comma; use a point as the decimal mark, like 0.012`);
   if (/^-/.test(text)) throw new CellProblem(`unit_cost ${quote(cell)} is negative; a unit cost is 0 or more`);
@@ -223,7 +289,8 @@ export function readUnitCost(cell: string): string {
  */
 export function readText(cell: string, column: string, maxLength: number): string {
   const text = cell.trim();
-  if ([...text].length > maxLength) throw new CellProblem(`${column} is ${[...text].length} characters long; at most ${maxLength} are allowed`);
+  // UTF-16 length bounds the character count from above, so most cells skip the exact count.
+  if (text.length > maxLength && [...text].length > maxLength) throw new CellProblem(`${column} is ${[...text].length} characters long; at most ${maxLength} are allowed`);
   const control = column === 'description' ? /[\u0000-\u0009\u000b-\u001f\u007f]/ : /[\u0000-\u001f\u007f]/;
   if (control.test(text)) throw new CellProblem(`${column} ${quote(cell)} contains a control character${column === 'description' ? '' : ' or a line break'}`);
   return text;

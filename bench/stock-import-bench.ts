@@ -1,0 +1,171 @@
+/**
+ * Stock import benchmark (handbook quality.md "Benchmarks"): 100,000 generated stock-list rows
+ * uploaded through the HTTP API (multer, UTF-8 check, papaparse, every cell checked, one locked
+ * transaction, COPY into a stage table, one upsert, per-part change records, history and audit)
+ * against PostgreSQL's own `COPY ... FROM STDIN (FORMAT csv)` of the very same file into a bare
+ * table of text columns, side by side in one run on one private cluster. Target: within 3x.
+ * A report, never a test. Run: npx tsx bench/stock-import-bench.ts
+ */
+import { rmSync } from 'node:fs';
+import { createServer, type Server } from 'node:http';
+import { join, resolve } from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { Readable } from 'node:stream';
+import { pipeline } from 'node:stream/promises';
+import pg from 'pg';
+import { from as copyFrom } from 'pg-copy-streams';
+import { pino } from 'pino';
+import { PgCluster } from '../scripts/pg-cluster.js';
+import { loadConfig } from '../server/config.js';
+import { openDatabase } from '../server/db.js';
+import { initModels } from '../server/models/index.js';
+import { migrate } from '../server/migrations/index.js';
+import { createApp } from '../server/app.js';
+import { createUser } from '../server/services/users/manage-users.js';
+import { signToken } from '../server/auth/tokens.js';
+import { mulberry32 } from '../shared/engine/seeded-random.js';
+import { eSeriesValues } from '../shared/engine/e-series.js';
+import { formatMs } from './report.js';
+
+const ROOT = resolve(import.meta.dirname, '..');
+const BENCH_PG_PORT = 54359;
+const ROWS = 100_000;
+/** Runs of each side; the median is reported. */
+const RUNS = 3;
+const TARGET_RATIO = 3;
+
+const HEADER =
+  'part_number,kind,value,tolerance,srf,q,q_freq,esr,quantity,package,voltage_rating,current_rating,location,series,unit_cost,manufacturer_part,description';
+
+/** 100k plausible rows (all columns), half capacitors and half inductors, over four locations. */
+function generateStockCsv(rows: number, quantityShift = 0): string {
+  const random = mulberry32(7);
+  const e24 = eSeriesValues('E24');
+  const lines = [HEADER];
+  for (let i = 0; i < rows; i += 1) {
+    const cap = i % 2 === 0;
+    const mantissa = e24[i % 24];
+    const decade = cap ? [1, 10, 100][i % 3] : [1, 10][i % 2];
+    const value = Number((mantissa * decade).toPrecision(3));
+    const srfGHz = Number((cap ? 12 / Math.sqrt(value) : 19 / Math.sqrt(value)).toPrecision(3));
+    const quantity = (Math.floor(random() * 4000) + quantityShift) % 5000;
+    lines.push(
+      [
+        `BX-${cap ? 'C' : 'L'}${String(i).padStart(6, '0')}`,
+        cap ? 'C' : 'L',
+        cap ? `${value}pF` : `${value}nH`,
+        cap ? (value < 10 ? 'C' : 'J') : '5%',
+        `${srfGHz}GHz`,
+        cap ? '' : String(20 + (i % 40)),
+        cap ? '' : '500MHz',
+        cap ? '0.3' : '',
+        String(quantity),
+        i % 3 === 0 ? '0603' : '0402',
+        cap ? '50V' : '',
+        cap ? '' : '300mA',
+        ['main', 'lab', 'bench-a', 'bench-b'][i % 4],
+        'E24',
+        (0.004 + (i % 500) / 10000).toFixed(4),
+        `MX-${i}`,
+        cap ? 'C0G chip capacitor' : 'wirewound chip inductor',
+      ].join(','),
+    );
+  }
+  return lines.join('\n') + '\n';
+}
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.floor(sorted.length / 2)];
+}
+
+async function uploadOnce(url: string, token: string, csv: Buffer, mode: 'merge' | 'replace'): Promise<{ ms: number; body: Record<string, unknown> }> {
+  const form = new FormData();
+  form.append('mode', mode);
+  form.append('file', new Blob([new Uint8Array(csv)], { type: 'text/csv' }), 'bench.csv');
+  const start = performance.now();
+  const res = await fetch(`${url}/api/stock/imports`, { method: 'POST', headers: { Authorization: `Bearer ${token}` }, body: form });
+  const body = (await res.json()) as Record<string, unknown>;
+  const ms = performance.now() - start;
+  if (res.status !== 200) throw new Error(`import answered ${res.status}: ${JSON.stringify(body).slice(0, 400)}`);
+  return { ms, body };
+}
+
+async function copyOnce(databaseUrl: string, csv: Buffer): Promise<number> {
+  const client = new pg.Client({ connectionString: databaseUrl });
+  await client.connect();
+  try {
+    await client.query('DROP TABLE IF EXISTS bare_stock');
+    await client.query(`CREATE TABLE bare_stock (${HEADER.split(',').map((c) => `${c} TEXT`).join(', ')})`);
+    const start = performance.now();
+    await pipeline(Readable.from([csv]), client.query(copyFrom('COPY bare_stock FROM STDIN (FORMAT csv, HEADER true)')));
+    return performance.now() - start;
+  } finally {
+    await client.end();
+  }
+}
+
+async function main(): Promise<void> {
+  const baseDir = join(ROOT, 'tmp', 'stock-bench-postgres');
+  rmSync(baseDir, { recursive: true, force: true });
+  const cluster = new PgCluster({ baseDir, port: BENCH_PG_PORT });
+  let server: Server | undefined;
+  try {
+    cluster.ensureStarted();
+    cluster.ensureDatabase('stock_bench');
+    const databaseUrl = cluster.url('stock_bench');
+    const sequelize = openDatabase(databaseUrl);
+    initModels(sequelize);
+    await migrate(sequelize);
+    const config = loadConfig({ JWT_SECRET: 'bench-secret-0123456789-abcdefghijklmnopqrstuvwxyz', DATABASE_URL: databaseUrl, LOG_LEVEL: 'silent' });
+    const app = createApp(config, sequelize, pino({ level: 'silent' }));
+    server = createServer(app);
+    await new Promise<void>((ready) => server!.listen(0, '127.0.0.1', () => ready()));
+    const address = server.address();
+    const url = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
+    const user = await createUser(sequelize, null, { email: 'bench@bench.example', name: 'Bench', role: 'stores', password: 'bench-password-1' });
+    const token = signToken(user.id, config.jwtSecret, '1h');
+
+    const csv = Buffer.from(generateStockCsv(ROWS));
+    const changed = Buffer.from(generateStockCsv(ROWS, 1));
+    console.log(`Stock import: ${ROWS.toLocaleString('en')} rows, ${(csv.length / 1024 / 1024).toFixed(1)} MB of CSV, ${RUNS} runs each, PostgreSQL on 127.0.0.1:${BENCH_PG_PORT}`);
+
+    const copyMs: number[] = [];
+    const freshMs: number[] = [];
+    const sameMs: number[] = [];
+    const updateMs: number[] = [];
+    for (let run = 0; run < RUNS; run += 1) {
+      copyMs.push(await copyOnce(databaseUrl, csv));
+      await sequelize.query('TRUNCATE stock_import_changes, parts, stock_imports RESTART IDENTITY CASCADE');
+      const fresh = await uploadOnce(url, token, csv, 'merge');
+      if (fresh.body.created !== ROWS) throw new Error(`expected ${ROWS} created, got ${JSON.stringify(fresh.body).slice(0, 300)}`);
+      freshMs.push(fresh.ms);
+      const same = await uploadOnce(url, token, csv, 'replace');
+      if (same.body.unchanged !== ROWS) throw new Error(`expected ${ROWS} unchanged, got ${JSON.stringify(same.body).slice(0, 300)}`);
+      sameMs.push(same.ms);
+      const update = await uploadOnce(url, token, changed, 'merge');
+      updateMs.push(update.ms);
+    }
+
+    const copy = median(copyMs);
+    const rows = (label: string, ms: number) =>
+      `  ${label.padEnd(46)} ${formatMs(ms).padStart(10)}   ${Math.round(ROWS / (ms / 1000)).toLocaleString('en').padStart(9)} rows/s   ${(ms / copy).toFixed(2)}x COPY`;
+    console.log(rows('PostgreSQL COPY (FORMAT csv) into a bare table', copy));
+    console.log(rows('HTTP import, all rows new (created)', median(freshMs)));
+    console.log(rows('HTTP import, same file again (replace, unchanged)', median(sameMs)));
+    console.log(rows('HTTP import, every quantity changed (updated)', median(updateMs)));
+    const ratio = median(freshMs) / copy;
+    console.log(`  target: new rows within ${TARGET_RATIO}x of COPY -> ${ratio.toFixed(2)}x ${ratio <= TARGET_RATIO ? 'MET' : 'NOT MET'}`);
+    console.log(`  samples (ms): copy ${copyMs.map((x) => x.toFixed(0)).join(' ')}; new ${freshMs.map((x) => x.toFixed(0)).join(' ')}; same ${sameMs.map((x) => x.toFixed(0)).join(' ')}; updated ${updateMs.map((x) => x.toFixed(0)).join(' ')}`);
+    await sequelize.close();
+  } finally {
+    if (server) {
+      server.closeAllConnections();
+      await new Promise<void>((done) => server!.close(() => done()));
+    }
+    cluster.stop();
+    rmSync(baseDir, { recursive: true, force: true });
+  }
+}
+
+await main();
