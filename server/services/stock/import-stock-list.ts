@@ -314,7 +314,8 @@ async function applyPlan(transaction: Transaction, importId: number, plan: Impor
   if (plan.zeroed.length > 0) {
     await client.query('UPDATE parts SET quantity = 0, last_import_id = $1, updated_at = now() WHERE id = ANY($2::int[])', [importId, plan.zeroed.map((z) => z.id)]);
   }
-  const changeRows: CopyValue[][] = updated.map((w) => [importId, w.partId, 'updated', w.quantityBefore, w.part.quantity, w.before, w.after]);
+  const fieldsOrNull = (fields: Record<string, unknown> | null) => (fields && Object.keys(fields).length > 0 ? fields : null);
+  const changeRows: CopyValue[][] = updated.map((w) => [importId, w.partId, 'updated', w.quantityBefore, w.part.quantity, fieldsOrNull(w.before), fieldsOrNull(w.after)]);
   for (const z of plan.zeroed) changeRows.push([importId, z.id, 'zeroed', z.quantityBefore, 0, null, null]);
   if (changeRows.length > 0) {
     await copyRows(transaction, 'stock_import_changes', ['import_id', 'part_id', 'change', 'quantity_before', 'quantity_after', 'before', 'after'], changeRows);
