@@ -5,14 +5,14 @@
  * and in stock before any above-limit fit; a fit that needs more of a part than is available, which
  * can only happen when one part serves both elements, after those), then the objective's loss,
  * then the ties: fewer parts, larger SRF margin (smaller largest f0/SRF; unknown SRF last), more
- * stock (the most builds the stock covers, `min available / uses`), lower cost (sum of unit costs per
- * build; unknown last), then part number (the fit's parts in ladder order, source to load).
+ * stock (the most builds the stock covers, `min available / uses`), lower cost (fewest parts of
+ * unknown cost, then the lowest sum of known unit costs per build), then part number (the fit's parts in ladder order, source to load).
  *
  * Losses are compared on a grid of {@link LOSS_KEY_DB} (1e-9 dB): two fits whose losses round to one
  * grid step tie and the tie rules decide. Rounding to a grid is a total order, and a bound on TPG
  * maps to a bound on the grid key, so the searches can prune safely.
  */
-import { TIER_SHORT_STOCK } from './kind-candidates.js';
+import { type KindCandidates, TIER_SHORT_STOCK } from './kind-candidates.js';
 import type { SnapProblem } from './snap-problem.js';
 import { type ArrangementCode, SINGLE, type SnapOption } from './snap-option.js';
 
@@ -51,14 +51,19 @@ export interface FitCandidate {
   lossKey: number;
   shunt: SnapOption | null;
   series: SnapOption | null;
+  /** The part (member index of the shunt candidates) in each place of the shunt option: `[first]` or `[first, second]`. */
+  shuntMembers: number[] | null;
+  seriesMembers: number[] | null;
   partCount: number;
   /** Largest f0/SRF of the parts (Infinity when one is unknown). */
   frequencyRatio: number;
   /** `min available / (uses x build quantity)` over the parts: how many times over the stock covers the build. */
   stockCover: number;
-  /** Sum of unit cost x uses (Infinity when one is unknown). */
+  /** Uses of parts whose unit cost is unknown (fewer ranks first: unknown cost ranks after any known cost). */
+  unknownCostParts: number;
+  /** Sum of the known unit costs x uses, in 1/10,000 of the currency unit (exact). */
   cost: number;
-  /** Part numbers (with location and id) in ladder order: the last tie rule. */
+  /** Part numbers (with location and id) in ladder order: the last tie rule (then the arrangement, so the order is total). */
   partKey: string;
 }
 
@@ -70,6 +75,7 @@ export function compareFits(a: FitCandidate, b: FitCandidate): number {
     a.partCount - b.partCount ||
     compareNumbers(a.frequencyRatio, b.frequencyRatio) ||
     compareNumbers(b.stockCover, a.stockCover) ||
+    a.unknownCostParts - b.unknownCostParts ||
     compareNumbers(a.cost, b.cost) ||
     (a.partKey < b.partKey ? -1 : a.partKey > b.partKey ? 1 : 0)
   );
@@ -79,73 +85,125 @@ function compareNumbers(a: number, b: number): number {
   return a < b ? -1 : a > b ? 1 : 0;
 }
 
-interface PartUse {
-  index: number;
-  uses: number;
+/** A place a part fills in a fit. */
+interface Slot {
+  shunt: boolean;
+  /** 0 or 1: which place of the option. */
+  place: number;
+  c: KindCandidates;
+  candidate: number;
+}
+
+/** Uses `k` of one member cover `available / (k q)` builds; floor with a hair of slack against rounding. */
+function usesAt(available: number, cover: number, q: number): number {
+  return Math.floor(available / (cover * q) + 1e-9);
 }
 
 /**
- * Completes a fit's ranking fields from its options: shortage from parts shared by both elements,
- * part count, frequency ratio, stock cover, cost and the part-number key.
+ * Completes a fit's ranking fields from its options and picks the parts of each merged model by the
+ * tie rules after the loss (stock-index.ts):
+ * 1. stock: for each model used u times in the fit (both elements count), the best cover
+ *    `max min available/(uses x q)` over ways to spread the u uses over its members (found by trying
+ *    each `available/(k q)`); the fit's cover is the least of these; below 1 the fit is short of stock;
+ * 2. cost: at that cover each member can take `floor(available/(cover q))` uses; filling the u uses
+ *    cheapest member first (known costs before unknown, then by part number) gives the fewest parts
+ *    of unknown cost and then the lowest known sum;
+ * 3. part number: the chosen members fill the model's places in ladder order, smallest key first.
  */
 export function describeFit(problem: SnapProblem, shunt: SnapOption | null, series: SnapOption | null, tpg: number, lossKey: number, partsTier: number): FitCandidate {
-  const sameKind = problem.shunt !== null && problem.series !== null && problem.shunt === problem.series;
-  const buildQuantity = (problem.shunt ?? problem.series)!.buildQuantity;
-  let tier = partsTier;
-  let partCount = 0;
-  let frequencyRatio = 0;
-  let cost = 0;
-  let stockCover = Infinity;
-  const elementKeys: string[] = [];
-  const shuntUses: PartUse[] = [];
-  const seriesUses: PartUse[] = [];
-  const collect = (option: SnapOption | null, into: PartUse[]) => {
-    if (!option) return;
-    const add = (index: number) => {
-      const found = into.find((u) => u.index === index);
-      if (found) found.uses++;
-      else into.push({ index, uses: 1 });
-    };
-    add(option.first);
-    if (option.arrangement !== SINGLE) add(option.second);
+  const q = (problem.shunt ?? problem.series)!.buildQuantity;
+  const slots: Slot[] = [];
+  const addSlots = (option: SnapOption | null, c: KindCandidates | null, isShunt: boolean) => {
+    if (!option || !c) return;
+    slots.push({ shunt: isShunt, place: 0, c, candidate: option.first });
+    if (option.arrangement !== SINGLE) slots.push({ shunt: isShunt, place: 1, c, candidate: option.second });
   };
-  collect(shunt, shuntUses);
-  collect(series, seriesUses);
-  const tally = (c: NonNullable<SnapProblem['shunt']>, uses: PartUse[], others: PartUse[]) => {
-    const keys: string[] = [];
-    for (const u of uses) {
-      const shared = sameKind ? (others.find((o) => o.index === u.index)?.uses ?? 0) : 0;
-      const total = u.uses + shared;
-      const part = c.parts[u.index];
-      if (total * buildQuantity > c.available[u.index]) tier |= TIER_SHORT_STOCK;
-      partCount += u.uses;
-      frequencyRatio = Math.max(frequencyRatio, c.frequencyRatio[u.index]);
-      cost += c.unitCost[u.index] * u.uses;
-      stockCover = Math.min(stockCover, c.available[u.index] / (total * buildQuantity));
-      for (let k = 0; k < u.uses; k++) keys.push(`${part.partNumber}\u0001${part.location}\u0001${part.id}`);
-    }
-    return keys.sort().join('\u0002');
-  };
-  const shuntKey = shunt ? tally(problem.shunt!, shuntUses, seriesUses) : null;
-  const seriesKey = series ? tally(problem.series!, seriesUses, shuntUses) : null;
+  // Ladder order, source to load.
   if (problem.placement === 'shunt-at-source') {
-    if (shuntKey !== null) elementKeys.push(shuntKey);
-    if (seriesKey !== null) elementKeys.push(seriesKey);
+    addSlots(shunt, problem.shunt, true);
+    addSlots(series, problem.series, false);
   } else {
-    if (seriesKey !== null) elementKeys.push(seriesKey);
-    if (shuntKey !== null) elementKeys.push(shuntKey);
+    addSlots(series, problem.series, false);
+    addSlots(shunt, problem.shunt, true);
   }
+  // Models used, each with its places.
+  const models: { c: KindCandidates; candidate: number; slots: Slot[]; cover: number }[] = [];
+  for (const slot of slots) {
+    const found = models.find((m) => m.c === slot.c && m.candidate === slot.candidate);
+    if (found) found.slots.push(slot);
+    else models.push({ c: slot.c, candidate: slot.candidate, slots: [slot], cover: 0 });
+  }
+  let cover = Infinity;
+  for (const m of models) {
+    const start = m.c.memberStart[m.candidate];
+    const end = m.c.memberStart[m.candidate + 1];
+    const u = m.slots.length;
+    let best = 0;
+    if (u === 1) {
+      for (let k = start; k < end; k++) best = Math.max(best, m.c.memberAvailable[k] / q);
+    } else {
+      for (let k = start; k < end; k++) {
+        for (let times = 1; times <= u; times++) {
+          const candidateCover = m.c.memberAvailable[k] / (times * q);
+          if (candidateCover <= best) break;
+          let total = 0;
+          for (let j = start; j < end && total < u; j++) total += usesAt(m.c.memberAvailable[j], candidateCover, q);
+          if (total >= u) best = candidateCover;
+        }
+      }
+    }
+    m.cover = best;
+    cover = Math.min(cover, best);
+  }
+  let tier = partsTier;
+  if (cover < 1) tier |= TIER_SHORT_STOCK;
+  const shuntMembers: number[] | null = shunt ? [] : null;
+  const seriesMembers: number[] | null = series ? [] : null;
+  let cost = 0;
+  let unknownCostParts = 0;
+  let frequencyRatio = 0;
+  let stockCover = Infinity;
+  for (const m of models) {
+    const start = m.c.memberStart[m.candidate];
+    const end = m.c.memberStart[m.candidate + 1];
+    let remaining = m.slots.length;
+    const chosen: number[] = [];
+    for (let k = start; k < end && remaining > 0; k++) {
+      const take = Math.min(remaining, usesAt(m.c.memberAvailable[k], cover, q));
+      if (take <= 0) continue;
+      for (let t = 0; t < take; t++) chosen.push(k);
+      remaining -= take;
+      if (Number.isFinite(m.c.memberCost[k])) cost += m.c.memberCost[k] * take;
+      else unknownCostParts += take;
+      stockCover = Math.min(stockCover, m.c.memberAvailable[k] / (take * q));
+    }
+    chosen.sort((a, b) => (m.c.memberKey[a] < m.c.memberKey[b] ? -1 : m.c.memberKey[a] > m.c.memberKey[b] ? 1 : a - b));
+    m.slots.forEach((slot, i) => {
+      const list = slot.shunt ? shuntMembers! : seriesMembers!;
+      list[slot.place] = chosen[i];
+    });
+    frequencyRatio = Math.max(frequencyRatio, m.c.frequencyRatio[m.candidate]);
+  }
+  const elementKey = (c: KindCandidates | null, members: number[] | null) =>
+    members ? members.map((k) => c!.memberKey[k]).sort().join('\u0002') : null;
+  const shuntKey = elementKey(problem.shunt, shuntMembers);
+  const seriesKey = elementKey(problem.series, seriesMembers);
+  const keys = problem.placement === 'shunt-at-source' ? [shuntKey, seriesKey] : [seriesKey, shuntKey];
   return {
     tier,
     tpg,
     lossKey,
     shunt,
     series,
-    partCount,
+    shuntMembers,
+    seriesMembers,
+    partCount: slots.length,
     frequencyRatio,
     stockCover,
-    cost: Number.isNaN(cost) ? Infinity : cost,
-    partKey: elementKeys.join('\u0003'),
+    unknownCostParts,
+    cost,
+    // Same parts in series and in parallel can tie on everything: the arrangement settles it last.
+    partKey: `${keys.filter((k) => k !== null).join('\u0003')}\u0004${shunt ? shunt.arrangement : '-'}${series ? series.arrangement : '-'}`,
   };
 }
 

@@ -1,7 +1,8 @@
 /**
  * The candidates of one part kind for one match (rf-engine.md "Snapping ideal networks to stock"):
  * stocked parts of the kind whose available quantity covers the need (build quantity per use), used
- * below their SRF, with their full-model impedance and admittance at f0 precomputed, and the two
+ * below their SRF, one candidate per electrical model (stock-index.ts; the members are the parts of
+ * that model with enough stock), with their full-model impedance and admittance at f0 precomputed, and the two
  * sorted trees the searches walk (impedance plane: singles and series pairs of a series element;
  * admittance plane: singles and parallel pairs of a shunt element).
  *
@@ -15,6 +16,7 @@ import { angularFrequency, type PartKind } from '../engine/part-kind.js';
 import { frequencyStatus, partImpedance, type PartModel } from '../engine/part-model.js';
 import { buildImmittanceTree, type ImmittanceTree } from './immittance-tree.js';
 import { snapPartModel, type SnapPart, unitCostForRanking } from './snap-part.js';
+import { partTieKey, type StockIndex } from './stock-index.js';
 
 /** What decides which parts are candidates. */
 export interface CandidateRules {
@@ -50,6 +52,7 @@ export interface ExcludedCounts {
 export interface KindCandidates {
   readonly kind: PartKind;
   readonly count: number;
+  /** A part of each candidate's model (every member shares its model fields). */
   readonly parts: readonly SnapPart[];
   readonly models: readonly PartModel[];
   /** Full-model impedance at f0, ohm. */
@@ -62,11 +65,15 @@ export interface KindCandidates {
   readonly tier: Uint8Array;
   /** f0/SRF, Infinity when SRF is unknown (ranks after every known margin). */
   readonly frequencyRatio: Float64Array;
-  readonly available: Float64Array;
-  /** Whether one part may fill both places of a pair (available >= 2 x build quantity). */
+  /** Whether the model may fill both places of a pair: one member with 2 x build quantity, or two with one each. */
   readonly canDouble: Uint8Array;
-  /** Unit cost for ranking, Infinity when unknown. */
-  readonly unitCost: Float64Array;
+  /** Members of candidate i: `memberStart[i] .. memberStart[i + 1] - 1`, ordered by unit cost, then tie key. */
+  readonly memberStart: Int32Array;
+  readonly memberParts: readonly SnapPart[];
+  readonly memberAvailable: Float64Array;
+  /** Unit cost for ranking in 1/10,000 of the currency unit, Infinity when unknown. */
+  readonly memberCost: Float64Array;
+  readonly memberKey: readonly string[];
   /** `min R/|X|` at f0 over the candidates (0 when any is lossless): every element of the kind has `R >= kappa |X|`. */
   readonly kappa: number;
   /** Sign of the reactance at f0: +1 inductors, -1 capacitors. */
@@ -80,13 +87,14 @@ export interface KindCandidates {
 }
 
 /**
- * Picks and prepares the candidates of `kind` from `parts` (any kinds; others are skipped). Full
- * models at f0: capacitor `Z = ESR + j(w ESL - 1/(w C))`, inductor `Z = 1/(1/(R + j w L) + j w Cp)`
- * (rf-engine.md "Part models"), `Y = 1/Z`.
+ * Picks and prepares the candidates of `kind` from a stock index. Full models at f0: capacitor
+ * `Z = ESR + j(w ESL - 1/(w C))`, inductor `Z = 1/(1/(R + j w L) + j w Cp)` (rf-engine.md "Part
+ * models"), `Y = 1/Z`. O(groups log groups + parts).
  */
-export function buildKindCandidates(parts: readonly SnapPart[], kind: PartKind, rules: CandidateRules): KindCandidates {
+export function buildKindCandidates(index: StockIndex, kind: PartKind, rules: CandidateRules): KindCandidates {
   const omega = angularFrequency(rules.frequencyHz);
   const sign: 1 | -1 = kind === 'inductor' ? 1 : -1;
+  const q = rules.buildQuantity;
   const excluded: ExcludedCounts = { shortStock: 0, atOrAboveSrf: 0, aboveLimitExcluded: 0, notItsKind: 0 };
   const kept: SnapPart[] = [];
   const models: PartModel[] = [];
@@ -94,70 +102,82 @@ export function buildKindCandidates(parts: readonly SnapPart[], kind: PartKind, 
   const zRe: number[] = [];
   const zIm: number[] = [];
   const tiers: number[] = [];
-  for (const part of parts) {
-    if (part.kind !== kind) continue;
-    if (part.available < rules.buildQuantity) {
-      excluded.shortStock++;
-      continue;
-    }
-    const model = snapPartModel(part);
+  const doubles: number[] = [];
+  const memberStart: number[] = [0];
+  const memberParts: SnapPart[] = [];
+  for (const group of index.groups[kind]) {
+    const eligible = group.members.filter((m) => m.available >= q);
+    excluded.shortStock += group.members.length - eligible.length;
+    if (eligible.length === 0) continue;
+    const model = snapPartModel(group.model);
     const status = frequencyStatus(model, rules.frequencyHz, rules.usableSrfFraction);
     if (status === 'at-or-above-srf') {
-      excluded.atOrAboveSrf++;
+      excluded.atOrAboveSrf += eligible.length;
       continue;
     }
     if (status === 'above-limit' && rules.excludeAboveLimit) {
-      excluded.aboveLimitExcluded++;
+      excluded.aboveLimitExcluded += eligible.length;
       continue;
     }
     partImpedance(model, omega, z);
     if (!(sign * z.im > 0) || !Number.isFinite(z.re)) {
-      excluded.notItsKind++;
+      excluded.notItsKind += eligible.length;
       continue;
     }
-    kept.push(part);
+    kept.push(group.model);
     models.push(model);
     zRe.push(z.re);
     zIm.push(z.im);
     tiers.push(status === 'above-limit' ? TIER_ABOVE_LIMIT : TIER_WITHIN);
+    let uses = 0;
+    for (const m of eligible) uses += Math.floor(m.available / q);
+    doubles.push(uses >= 2 ? 1 : 0);
+    if (eligible.length > 1) {
+      eligible.sort((a, b) => unitCostForRanking(a.unitCost) - unitCostForRanking(b.unitCost) || (partTieKey(a) < partTieKey(b) ? -1 : 1));
+    }
+    for (const m of eligible) memberParts.push(m);
+    memberStart.push(memberParts.length);
   }
   const n = kept.length;
-  const c = {
-    zRe: Float64Array.from(zRe),
-    zIm: Float64Array.from(zIm),
-    yRe: new Float64Array(n),
-    yIm: new Float64Array(n),
-    tier: Uint8Array.from(tiers),
-    frequencyRatio: new Float64Array(n),
-    available: new Float64Array(n),
-    canDouble: new Uint8Array(n),
-    unitCost: new Float64Array(n),
-  };
+  const yRe = new Float64Array(n);
+  const yIm = new Float64Array(n);
+  const frequencyRatio = new Float64Array(n);
+  const zr = Float64Array.from(zRe);
+  const zi = Float64Array.from(zIm);
   let kappa = Infinity;
   for (let i = 0; i < n; i++) {
-    const d = c.zRe[i] * c.zRe[i] + c.zIm[i] * c.zIm[i];
-    c.yRe[i] = c.zRe[i] / d;
-    c.yIm[i] = -c.zIm[i] / d;
+    const d = zr[i] * zr[i] + zi[i] * zi[i];
+    yRe[i] = zr[i] / d;
+    yIm[i] = -zi[i] / d;
     const srf = kept[i].srfHz;
-    c.frequencyRatio[i] = srf === null ? Infinity : rules.frequencyHz / srf;
-    c.available[i] = kept[i].available;
-    c.canDouble[i] = kept[i].available >= 2 * rules.buildQuantity ? 1 : 0;
-    c.unitCost[i] = unitCostForRanking(kept[i].unitCost);
-    kappa = Math.min(kappa, c.zRe[i] / Math.abs(c.zIm[i]));
+    frequencyRatio[i] = srf === null ? Infinity : rules.frequencyHz / srf;
+    kappa = Math.min(kappa, zr[i] / Math.abs(zi[i]));
   }
   // A shade under the smallest ratio, so rounding in sums of two parts never leaves the wedge.
   kappa = n === 0 ? 0 : Math.max(0, kappa * (1 - 1e-9));
+  const tier = Uint8Array.from(tiers);
   return {
     kind,
     count: n,
     parts: kept,
     models,
-    ...c,
+    zRe: zr,
+    zIm: zi,
+    yRe,
+    yIm,
+    tier,
+    frequencyRatio,
+    canDouble: Uint8Array.from(doubles),
+    memberStart: Int32Array.from(memberStart),
+    memberParts,
+    memberAvailable: Float64Array.from(memberParts, (m) => m.available),
+    memberCost: Float64Array.from(memberParts, (m) => unitCostForRanking(m.unitCost)),
+    memberKey: memberParts.map(partTieKey),
     kappa,
     sign,
-    zTree: buildImmittanceTree(c.zRe, c.zIm, c.tier, n),
-    yTree: buildImmittanceTree(c.yRe, c.yIm, c.tier, n),
+    zTree: buildImmittanceTree(zr, zi, tier, n),
+    yTree: buildImmittanceTree(yRe, yIm, tier, n),
     excluded,
-    buildQuantity: rules.buildQuantity,
+    buildQuantity: q,
   };
 }

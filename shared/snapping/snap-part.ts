@@ -48,9 +48,15 @@ export function snapPartModel(part: SnapPart): PartModel {
   );
 }
 
-/** Unit cost as a number for ranking (`"0.0125"` -> 0.0125); unknown cost ranks last (Infinity). */
+/** Money steps of a unit cost: stock-csv.md keeps 4 decimal places. */
+export const COST_STEPS_PER_UNIT = 10_000;
+
+/**
+ * Unit cost for ranking as a whole number of 1/10,000 of the currency unit (`"0.0125"` -> 125), so
+ * sums are exact and compare without rounding; unknown cost is Infinity (ranks last).
+ */
 export function unitCostForRanking(unitCost: string | null): number {
   if (unitCost === null) return Infinity;
   const value = Number(unitCost);
-  return Number.isFinite(value) ? value : Infinity;
+  return Number.isFinite(value) ? Math.round(value * COST_STEPS_PER_UNIT) : Infinity;
 }

@@ -1,0 +1,67 @@
+/**
+ * A stock list prepared for snapping, once per stock (not per match): parts grouped by their
+ * electrical model, so the searches treat every group as one candidate and the tie rules later pick
+ * the group's part(s) (fit-collector.ts `describeFit`).
+ *
+ * Two parts have one electrical model when kind, value, tolerance, SRF, ESR, Q and Q test frequency
+ * are all equal (rf-engine.md "Part models": nothing else enters the fit's losses). Such parts give
+ * exactly the same loss in every fit, so a fit with one differs from a fit with the other only in the
+ * tie rules after the loss (stock, cost, part number); merging them is exact. Ratings stay per part
+ * (they decide the "over rating" flag of the part actually chosen, not the rank).
+ */
+import type { PartKind } from '../engine/part-kind.js';
+import type { SnapPart } from './snap-part.js';
+
+/** Parts of one electrical model; `members` sorted by part number, location, id. */
+export interface ModelGroup {
+  readonly kind: PartKind;
+  /** Any member: they share every model field. */
+  readonly model: SnapPart;
+  readonly members: readonly SnapPart[];
+}
+
+/** The prepared stock: groups of each kind, in ascending value. */
+export interface StockIndex {
+  readonly groups: Readonly<Record<PartKind, readonly ModelGroup[]>>;
+  readonly partCount: number;
+  /** Whether identical models were merged (false: one group per part, for reference searches). */
+  readonly merged: boolean;
+}
+
+/** The tie key of a part: part number, then location, then id (so the order is total). */
+export function partTieKey(part: SnapPart): string {
+  return `${part.partNumber}\u0001${part.location}\u0001${String(part.id).padStart(12, '0')}`;
+}
+
+function modelKey(p: SnapPart): string {
+  const t = p.tolerance;
+  const amount = t.mode === 'relative' ? t.fraction : t.deltaSi;
+  return `${p.kind}|${p.value}|${t.mode}|${amount}|${p.srfHz}|${p.esrOhm}|${p.q}|${p.qFrequencyHz}`;
+}
+
+/**
+ * Groups `parts` by electrical model (or, with `merge: false`, one group per part). O(n log n).
+ */
+export function buildStockIndex(parts: readonly SnapPart[], options: { merge?: boolean } = {}): StockIndex {
+  const merge = options.merge ?? true;
+  const byKey = new Map<string, SnapPart[]>();
+  const singles: SnapPart[][] = [];
+  for (const part of parts) {
+    if (!merge) {
+      singles.push([part]);
+      continue;
+    }
+    const key = modelKey(part);
+    const list = byKey.get(key);
+    if (list) list.push(part);
+    else byKey.set(key, [part]);
+  }
+  const lists = merge ? [...byKey.values()] : singles;
+  const groups: Record<PartKind, ModelGroup[]> = { capacitor: [], inductor: [] };
+  for (const list of lists) {
+    const members = list.length > 1 ? [...list].sort((a, b) => (partTieKey(a) < partTieKey(b) ? -1 : 1)) : list;
+    groups[list[0].kind].push({ kind: list[0].kind, model: members[0], members });
+  }
+  for (const kind of ['capacitor', 'inductor'] as const) groups[kind].sort((a, b) => a.model.value - b.model.value);
+  return { groups, partCount: parts.length, merged: merge };
+}
