@@ -1,44 +1,80 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
+import { MatListModule } from '@angular/material/list';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { ActivatedRoute, Router } from '@angular/router';
+import { of } from 'rxjs';
 
-/** Builds page. Not built yet: it says so, and what it will hold. */
+import type { Role } from '../../../shared/api/auth.js';
+import type { BuildResponse } from '../../../shared/api/builds.js';
+import { apiErrorMessage } from '../api/api-error-message.js';
+import { AuthSession } from '../auth/auth-session.js';
+import { MatchClient } from '../matches/match-client.js';
+import { fetchedSignal } from '../stock/fetched-signal.js';
+import { BuildClient } from './build-client.js';
+import { BUILD_PLANNING_ROLES, BuildDetail } from './build-detail.js';
+import { BuildPlanForm } from './build-plan-form.js';
+import { BUILD_STATUS_WORDS } from './build-words.js';
+
+/** The Builds page: plan a build from saved matches, the builds so far, and the one chosen with its lines and shortfall. */
 @Component({
   selector: 'sm-builds-page',
+  templateUrl: './builds-page.html',
+  styleUrl: './builds-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule],
-  template: `
-    <h1 class="title"><mat-icon aria-hidden="true">developer_board</mat-icon>Builds</h1>
-    <p class="status" data-testid="builds-status">Not built yet: builds are coming with the build planning work.</p>
-    <p class="plan">Here a designer will plan a build (a board with several saved matches, times a quantity); the stock it needs is reserved, and what stores cannot supply becomes a shortfall list.</p>
-  `,
-  styles: `
-    :host {
-      display: block;
-      max-width: 48em;
-    }
-    .title {
-      display: flex;
-      align-items: center;
-      gap: 12px;
-      margin: 0 0 16px;
-      font: var(--mat-sys-headline-small);
-    }
-    .title mat-icon {
-      color: var(--mat-sys-tertiary);
-    }
-    .status {
-      display: inline-block;
-      margin: 0 0 12px;
-      padding: 6px 14px;
-      border-radius: var(--mat-sys-corner-full);
-      background: var(--mat-sys-secondary-container);
-      color: var(--mat-sys-on-secondary-container);
-      font: var(--mat-sys-label-large);
-    }
-    .plan {
-      font: var(--mat-sys-body-large);
-      line-height: 1.6;
-    }
-  `,
+  imports: [MatIconModule, MatListModule, MatProgressBarModule, BuildDetail, BuildPlanForm],
 })
-export class BuildsPage {}
+export class BuildsPage {
+  private readonly builds = inject(BuildClient);
+  private readonly matchClient = inject(MatchClient);
+  private readonly session = inject(AuthSession);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+
+  /** Whether the signed-in role may plan builds. */
+  protected readonly mayPlan = computed(() => BUILD_PLANNING_ROLES.includes(this.session.currentUser()?.role as Role));
+  /** Bumped after every change, so the list fetches again. */
+  private readonly revision = signal(0);
+  protected readonly list = fetchedSignal(() => this.revision(), () => this.builds.listBuilds());
+  protected readonly savedMatches = fetchedSignal(() => this.mayPlan(), (may) => (may ? this.matchClient.list() : of([])));
+  protected readonly selectedId = signal<number | null>(null);
+  protected readonly selected = signal<BuildResponse | null>(null);
+  protected readonly detailError = signal<string | null>(null);
+  protected readonly statusWords = BUILD_STATUS_WORDS;
+
+  protected readonly listError = computed(() => (this.list().error ? apiErrorMessage(this.list().error, 'The builds could not be loaded.') : null));
+  protected readonly matchesError = computed(() => (this.savedMatches().error ? apiErrorMessage(this.savedMatches().error, 'The saved matches could not be loaded.') : null));
+
+  constructor() {
+    inject(ActivatedRoute)
+      .queryParamMap.pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe((params) => {
+        const id = Number(params.get('build'));
+        if (Number.isInteger(id) && id > 0 && id !== this.selectedId()) this.openBuild(id);
+      });
+  }
+
+  protected chooseBuild(id: number): void {
+    void this.router.navigate([], { queryParams: { build: id }, queryParamsHandling: 'merge' });
+  }
+
+  protected showBuild(build: BuildResponse): void {
+    this.selectedId.set(build.id);
+    this.selected.set(build);
+    this.revision.update((n) => n + 1);
+    this.chooseBuild(build.id);
+  }
+
+  private openBuild(id: number): void {
+    this.selectedId.set(id);
+    this.detailError.set(null);
+    this.builds.getBuild(id).subscribe({
+      next: (build) => this.selected.set(build),
+      error: (error: unknown) => {
+        this.selected.set(null);
+        this.detailError.set(apiErrorMessage(error, `Build ${id} could not be loaded.`));
+      },
+    });
+  }
+}

@@ -1,44 +1,72 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatTableModule } from '@angular/material/table';
+import { ActivatedRoute, Router } from '@angular/router';
 
-/** Shortfall lists page. Not built yet: it says so, and what it will hold. */
+import type { ShortfallListResponse } from '../../../shared/api/builds.js';
+import { apiErrorMessage } from '../api/api-error-message.js';
+import { BuildClient } from '../builds/build-client.js';
+import { buildStatusWord, shortfallStatusWord } from '../builds/build-words.js';
+import { fetchedSignal } from '../stock/fetched-signal.js';
+import { ShortfallDetail } from './shortfall-detail.js';
+
+/** The Shortfall lists page: every build's list with its status, and the chosen one to review, export, send and receive. */
 @Component({
   selector: 'sm-shortfall-page',
+  templateUrl: './shortfall-page.html',
+  styleUrl: './shortfall-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule],
-  template: `
-    <h1 class="title"><mat-icon aria-hidden="true">receipt_long</mat-icon>Shortfall lists</h1>
-    <p class="status" data-testid="shortfall-status">Not built yet: shortfall lists are coming with the build planning work.</p>
-    <p class="plan">Here purchasing will review what each build still needs, with a buy-to spec for every line, export it as CSV, e-mail it to a supplier and track its status.</p>
-  `,
-  styles: `
-    :host {
-      display: block;
-      max-width: 48em;
-    }
-    .title {
-      display: flex;
-      align-items: center;
-      gap: 12px;
-      margin: 0 0 16px;
-      font: var(--mat-sys-headline-small);
-    }
-    .title mat-icon {
-      color: var(--mat-sys-tertiary);
-    }
-    .status {
-      display: inline-block;
-      margin: 0 0 12px;
-      padding: 6px 14px;
-      border-radius: var(--mat-sys-corner-full);
-      background: var(--mat-sys-secondary-container);
-      color: var(--mat-sys-on-secondary-container);
-      font: var(--mat-sys-label-large);
-    }
-    .plan {
-      font: var(--mat-sys-body-large);
-      line-height: 1.6;
-    }
-  `,
+  imports: [MatIconModule, MatProgressBarModule, MatTableModule, ShortfallDetail],
 })
-export class ShortfallPage {}
+export class ShortfallPage {
+  private readonly client = inject(BuildClient);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+
+  /** Bumped after every change, so the overview fetches again. */
+  private readonly revision = signal(0);
+  protected readonly lists = fetchedSignal(() => this.revision(), () => this.client.listShortfallLists());
+  protected readonly selectedBuildId = signal<number | null>(null);
+  protected readonly selected = signal<ShortfallListResponse | null>(null);
+  protected readonly detailError = signal<string | null>(null);
+  protected readonly columns = ['build', 'status', 'lines', 'quantity', 'received', 'updated'];
+  protected readonly shortfallStatusWord = shortfallStatusWord;
+  protected readonly buildStatusWord = buildStatusWord;
+  protected readonly listError = computed(() => (this.lists().error ? apiErrorMessage(this.lists().error, 'The shortfall lists could not be loaded.') : null));
+
+  constructor() {
+    inject(ActivatedRoute)
+      .queryParamMap.pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe((params) => {
+        const id = Number(params.get('build'));
+        if (Number.isInteger(id) && id > 0) this.openList(id);
+      });
+  }
+
+  protected chooseList(buildId: number): void {
+    void this.router.navigate([], { queryParams: { build: buildId } });
+  }
+
+  protected noteChange(list: ShortfallListResponse | null): void {
+    if (list) this.selected.set(list);
+    this.revision.update((n) => n + 1);
+  }
+
+  protected dateText(iso: string): string {
+    return new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+  }
+
+  private openList(buildId: number): void {
+    this.selectedBuildId.set(buildId);
+    this.detailError.set(null);
+    this.client.getShortfall(buildId).subscribe({
+      next: (list) => this.selected.set(list),
+      error: (error: unknown) => {
+        this.selected.set(null);
+        this.detailError.set(apiErrorMessage(error, `The shortfall list of build ${buildId} could not be loaded.`));
+      },
+    });
+  }
+}
