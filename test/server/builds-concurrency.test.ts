@@ -78,3 +78,31 @@ describe('50 builds at once against 10 on hand', () => {
     expect(parts.body.items[0]).toMatchObject({ quantity: 10, reserved: 10, available: 0 });
   });
 });
+
+describe('builds and stock imports at once', () => {
+  it('neither deadlocks nor loses a reservation: reserved always equals what held builds add up to', async () => {
+    const stores = await t.addUser('stores');
+    const recount = (n: number) =>
+      uploadStock(t.app, stores.token, stockFile(stockRow('TW-L0402-10N', 'L', '10nH', 'J', '6GHz', '0.5', 500 + n)), { fileName: `recount-${n}.csv` });
+    const builds = Array.from({ length: 20 }, (_, i) =>
+      createBuild(t.sequelize, { name: `mixed-${i}`, quantity: 2, reserve: true, plans: [{ matchId: 1, matchName: '868 MHz antenna', design: subGhzDesign() }] }, designer.id),
+    );
+    const imports = Array.from({ length: 5 }, (_, i) => recount(i + 1));
+    const [built, uploaded] = await Promise.all([Promise.all(builds), Promise.all(imports)]);
+    expect(built).toHaveLength(20);
+    expect(uploaded.map((r) => r.status)).toEqual([200, 200, 200, 200, 200]);
+
+    const rows = await t.sequelize.query<{ part_number: string; quantity: number; reserved: number; held: string }>(
+      `SELECT p.part_number, p.quantity, p.reserved, COALESCE(SUM(r.quantity) FILTER (WHERE r.state = 'held'), 0) AS held
+       FROM parts p LEFT JOIN reservations r ON r.part_id = p.id GROUP BY p.id ORDER BY p.part_number`,
+      { type: QueryTypes.SELECT },
+    );
+    // The capacitor was all held already; 50 + 20 x 2 = 90 inductors are held; the last recount decides on hand.
+    expect(rows.map((r) => [r.part_number, r.reserved, Number(r.held)])).toEqual([
+      ['TW-C0402-6P8', 10, 10],
+      ['TW-L0402-10N', 90, 90],
+    ]);
+    expect(rows[1].quantity).toBeGreaterThanOrEqual(501);
+    expect(rows[1].quantity).toBeLessThanOrEqual(505);
+  });
+});

@@ -7,7 +7,7 @@ import type { Sequelize } from 'sequelize';
 import { Reservation } from '../../models/index.js';
 import { conflict } from '../../errors.js';
 import { recordAudit } from '../audit.js';
-import { lockBuild } from './build-lifecycle-lock.js';
+import { lockBuild, lockStockShared } from './build-lifecycle-lock.js';
 import { lockHeldParts, takeFromParts } from './held-stock.js';
 
 /**
@@ -20,6 +20,7 @@ export async function cancelBuild(sequelize: Sequelize, buildId: number, actorId
     if (build.status !== 'planned' && build.status !== 'reserved') {
       throw conflict(`Build ${buildId} is ${build.status}; only a planned or reserved build can be cancelled.`);
     }
+    await lockStockShared(sequelize, transaction);
     const parts = await lockHeldParts(sequelize, transaction, buildId);
     await takeFromParts(sequelize, transaction, parts, { consume: false });
     await Reservation.update({ state: 'released' }, { where: { buildId, state: 'held' }, transaction });

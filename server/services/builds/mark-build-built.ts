@@ -7,7 +7,7 @@ import type { Sequelize } from 'sequelize';
 import { Reservation } from '../../models/index.js';
 import { conflict } from '../../errors.js';
 import { recordAudit } from '../audit.js';
-import { lockBuild, lockOnHandChanges } from './build-lifecycle-lock.js';
+import { lockBuild, lockOnHandChanges, lockStockExclusive } from './build-lifecycle-lock.js';
 import { lockHeldParts, takeFromParts } from './held-stock.js';
 
 /**
@@ -20,6 +20,7 @@ export async function markBuildBuilt(sequelize: Sequelize, buildId: number, acto
     const build = await lockBuild(transaction, buildId);
     if (build.status !== 'reserved') throw conflict(`Build ${buildId} is ${build.status}; only a reserved build can be marked built.`);
     await lockOnHandChanges(sequelize, transaction);
+    await lockStockExclusive(sequelize, transaction);
     const parts = await lockHeldParts(sequelize, transaction, buildId);
     const missing = parts.filter((p) => p.quantity < p.held);
     if (missing.length > 0) {

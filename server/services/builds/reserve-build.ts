@@ -1,11 +1,12 @@
 /**
- * Reserving a build: inside the caller's transaction, lock every part row the build could use
- * (`SELECT ... FOR UPDATE` in one statement, ordered by id, so two builds, or a build and a stock
- * import, always lock in the same order and never deadlock), share the stock out
- * (allocate-stock.ts), hold what was granted (reservation rows, and `parts.reserved` raised by the
- * same amounts), and write the shortfall list of what could not be met. Because every reservation
- * reads `quantity - reserved` only under those row locks, concurrent builds queue on the rows they
- * share and none ever holds more than is on hand.
+ * Reserving a build: inside the caller's transaction, take the stock lock shared (so no stock
+ * import runs meanwhile; see build-lifecycle-lock.ts), lock every part row the build could use
+ * (`SELECT ... FOR UPDATE` in one statement, ordered by id, so two builds always lock in the same
+ * order and never deadlock), share the stock out (allocate-stock.ts), hold what was granted
+ * (reservation rows, and `parts.reserved` raised by the same amounts), and write the shortfall
+ * list of what could not be met. Because every reservation reads `quantity - reserved` only under
+ * those row locks, concurrent builds queue on the rows they share and none ever holds more than is
+ * on hand.
  */
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { BuildMove } from '../../../shared/api/builds.js';
@@ -17,7 +18,7 @@ import { allocateStock, SUBSTITUTE_VALUE_WINDOW, type Allocation, type PlanToAll
 import { readBuildSettings, type BuildSettings } from './build-settings.js';
 import { writeShortfallList } from '../shortfall/write-shortfall-list.js';
 import { conflict } from '../../errors.js';
-import { lockBuild } from './build-lifecycle-lock.js';
+import { lockBuild, lockStockShared } from './build-lifecycle-lock.js';
 
 /** A part row as the engine models it. */
 export function partSpecOfRow(row: PartRow): PartSpec {
@@ -81,6 +82,7 @@ export async function reserveBuild(sequelize: Sequelize, transaction: Transactio
   const matches = await BuildMatch.findAll({ where: { buildId: build.id }, order: [['ordinal', 'ASC']], transaction });
   const plans: PlanToAllocate[] = matches.map((m) => ({ matchId: Number(m.matchId), matchName: m.matchName, design: m.design }));
   const settings: BuildSettings = await readBuildSettings(sequelize, transaction);
+  await lockStockShared(sequelize, transaction);
   const locked = await lockCandidateRows(sequelize, transaction, plans);
   const rows: StockRow[] = locked.map((row) => ({
     id: row.id,
