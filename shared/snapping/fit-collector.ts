@@ -51,7 +51,7 @@ export interface FitCandidate {
   lossKey: number;
   shunt: SnapOption | null;
   series: SnapOption | null;
-  /** The part (member index of the shunt candidates) in each place of the shunt option: `[first]` or `[first, second]`. */
+  /** The part (index into the kind's member table) in each place of the shunt option: `[first]` or `[first, second]`. */
   shuntMembers: number[] | null;
   seriesMembers: number[] | null;
   partCount: number;
@@ -136,18 +136,20 @@ export function describeFit(problem: SnapProblem, shunt: SnapOption | null, seri
   let cover = Infinity;
   for (const m of models) {
     const start = m.c.memberStart[m.candidate];
-    const end = m.c.memberStart[m.candidate + 1];
+    const end = m.c.memberEnd[m.candidate];
+    const available = m.c.members.available;
     const u = m.slots.length;
     let best = 0;
     if (u === 1) {
-      for (let k = start; k < end; k++) best = Math.max(best, m.c.memberAvailable[k] / q);
+      for (let k = start; k < end; k++) if (available[k] >= q) best = Math.max(best, available[k] / q);
     } else {
       for (let k = start; k < end; k++) {
+        if (available[k] < q) continue;
         for (let times = 1; times <= u; times++) {
-          const candidateCover = m.c.memberAvailable[k] / (times * q);
+          const candidateCover = available[k] / (times * q);
           if (candidateCover <= best) break;
           let total = 0;
-          for (let j = start; j < end && total < u; j++) total += usesAt(m.c.memberAvailable[j], candidateCover, q);
+          for (let j = start; j < end && total < u; j++) if (available[j] >= q) total += usesAt(available[j], candidateCover, q);
           if (total >= u) best = candidateCover;
         }
       }
@@ -165,19 +167,21 @@ export function describeFit(problem: SnapProblem, shunt: SnapOption | null, seri
   let stockCover = Infinity;
   for (const m of models) {
     const start = m.c.memberStart[m.candidate];
-    const end = m.c.memberStart[m.candidate + 1];
+    const end = m.c.memberEnd[m.candidate];
+    const { available, costs, keys } = m.c.members;
     let remaining = m.slots.length;
     const chosen: number[] = [];
     for (let k = start; k < end && remaining > 0; k++) {
-      const take = Math.min(remaining, usesAt(m.c.memberAvailable[k], cover, q));
+      if (available[k] < q) continue;
+      const take = Math.min(remaining, usesAt(available[k], cover, q));
       if (take <= 0) continue;
       for (let t = 0; t < take; t++) chosen.push(k);
       remaining -= take;
-      if (Number.isFinite(m.c.memberCost[k])) cost += m.c.memberCost[k] * take;
+      if (Number.isFinite(costs[k])) cost += costs[k] * take;
       else unknownCostParts += take;
-      stockCover = Math.min(stockCover, m.c.memberAvailable[k] / (take * q));
+      stockCover = Math.min(stockCover, available[k] / (take * q));
     }
-    chosen.sort((a, b) => (m.c.memberKey[a] < m.c.memberKey[b] ? -1 : m.c.memberKey[a] > m.c.memberKey[b] ? 1 : a - b));
+    chosen.sort((a, b) => (keys[a] < keys[b] ? -1 : keys[a] > keys[b] ? 1 : a - b));
     m.slots.forEach((slot, i) => {
       const list = slot.shunt ? shuntMembers! : seriesMembers!;
       list[slot.place] = chosen[i];
@@ -185,7 +189,7 @@ export function describeFit(problem: SnapProblem, shunt: SnapOption | null, seri
     frequencyRatio = Math.max(frequencyRatio, m.c.frequencyRatio[m.candidate]);
   }
   const elementKey = (c: KindCandidates | null, members: number[] | null) =>
-    members ? members.map((k) => c!.memberKey[k]).sort().join('\u0002') : null;
+    members ? members.map((k) => c!.members.keys[k]).sort().join('\u0002') : null;
   const shuntKey = elementKey(problem.shunt, shuntMembers);
   const seriesKey = elementKey(problem.series, seriesMembers);
   const keys = problem.placement === 'shunt-at-source' ? [shuntKey, seriesKey] : [seriesKey, shuntKey];

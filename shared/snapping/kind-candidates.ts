@@ -15,8 +15,8 @@
 import { angularFrequency, type PartKind } from '../engine/part-kind.js';
 import { frequencyStatus, partImpedance, type PartModel } from '../engine/part-model.js';
 import { buildImmittanceTree, type ImmittanceTree } from './immittance-tree.js';
-import { snapPartModel, type SnapPart, unitCostForRanking } from './snap-part.js';
-import { partTieKey, type StockIndex } from './stock-index.js';
+import { snapPartModel, type SnapPart } from './snap-part.js';
+import type { MemberTable, StockIndex } from './stock-index.js';
 
 /** What decides which parts are candidates. */
 export interface CandidateRules {
@@ -67,13 +67,13 @@ export interface KindCandidates {
   readonly frequencyRatio: Float64Array;
   /** Whether the model may fill both places of a pair: one member with 2 x build quantity, or two with one each. */
   readonly canDouble: Uint8Array;
-  /** Members of candidate i: `memberStart[i] .. memberStart[i + 1] - 1`, ordered by unit cost, then tie key. */
+  /**
+   * Members of candidate i: entries `memberStart[i] .. memberEnd[i] - 1` of `members` (ordered by unit
+   * cost, then tie key), of which those with `available >= buildQuantity` may be used.
+   */
   readonly memberStart: Int32Array;
-  readonly memberParts: readonly SnapPart[];
-  readonly memberAvailable: Float64Array;
-  /** Unit cost for ranking in 1/10,000 of the currency unit, Infinity when unknown. */
-  readonly memberCost: Float64Array;
-  readonly memberKey: readonly string[];
+  readonly memberEnd: Int32Array;
+  readonly members: MemberTable;
   /** `min R/|X|` at f0 over the candidates (0 when any is lossless): every element of the kind has `R >= kappa |X|`. */
   readonly kappa: number;
   /** Sign of the reactance at f0: +1 inductors, -1 capacitors. */
@@ -103,25 +103,34 @@ export function buildKindCandidates(index: StockIndex, kind: PartKind, rules: Ca
   const zIm: number[] = [];
   const tiers: number[] = [];
   const doubles: number[] = [];
-  const memberStart: number[] = [0];
-  const memberParts: SnapPart[] = [];
+  const memberStart: number[] = [];
+  const memberEnd: number[] = [];
+  const table = index.members[kind];
+  const available = table.available;
   for (const group of index.groups[kind]) {
-    const eligible = group.members.filter((m) => m.available >= q);
-    excluded.shortStock += group.members.length - eligible.length;
-    if (eligible.length === 0) continue;
+    let eligible = 0;
+    let uses = 0;
+    for (let k = group.start; k < group.end; k++) {
+      if (available[k] >= q) {
+        eligible++;
+        uses += Math.floor(available[k] / q);
+      }
+    }
+    excluded.shortStock += group.end - group.start - eligible;
+    if (eligible === 0) continue;
     const model = snapPartModel(group.model);
     const status = frequencyStatus(model, rules.frequencyHz, rules.usableSrfFraction);
     if (status === 'at-or-above-srf') {
-      excluded.atOrAboveSrf += eligible.length;
+      excluded.atOrAboveSrf += eligible;
       continue;
     }
     if (status === 'above-limit' && rules.excludeAboveLimit) {
-      excluded.aboveLimitExcluded += eligible.length;
+      excluded.aboveLimitExcluded += eligible;
       continue;
     }
     partImpedance(model, omega, z);
     if (!(sign * z.im > 0) || !Number.isFinite(z.re)) {
-      excluded.notItsKind += eligible.length;
+      excluded.notItsKind += eligible;
       continue;
     }
     kept.push(group.model);
@@ -129,14 +138,9 @@ export function buildKindCandidates(index: StockIndex, kind: PartKind, rules: Ca
     zRe.push(z.re);
     zIm.push(z.im);
     tiers.push(status === 'above-limit' ? TIER_ABOVE_LIMIT : TIER_WITHIN);
-    let uses = 0;
-    for (const m of eligible) uses += Math.floor(m.available / q);
     doubles.push(uses >= 2 ? 1 : 0);
-    if (eligible.length > 1) {
-      eligible.sort((a, b) => unitCostForRanking(a.unitCost) - unitCostForRanking(b.unitCost) || (partTieKey(a) < partTieKey(b) ? -1 : 1));
-    }
-    for (const m of eligible) memberParts.push(m);
-    memberStart.push(memberParts.length);
+    memberStart.push(group.start);
+    memberEnd.push(group.end);
   }
   const n = kept.length;
   const yRe = new Float64Array(n);
@@ -169,10 +173,8 @@ export function buildKindCandidates(index: StockIndex, kind: PartKind, rules: Ca
     frequencyRatio,
     canDouble: Uint8Array.from(doubles),
     memberStart: Int32Array.from(memberStart),
-    memberParts,
-    memberAvailable: Float64Array.from(memberParts, (m) => m.available),
-    memberCost: Float64Array.from(memberParts, (m) => unitCostForRanking(m.unitCost)),
-    memberKey: memberParts.map(partTieKey),
+    memberEnd: Int32Array.from(memberEnd),
+    members: table,
     kappa,
     sign,
     zTree: buildImmittanceTree(zr, zi, tier, n),

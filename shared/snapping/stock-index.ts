@@ -10,19 +10,34 @@
  * (they decide the "over rating" flag of the part actually chosen, not the rank).
  */
 import type { PartKind } from '../engine/part-kind.js';
-import type { SnapPart } from './snap-part.js';
+import { type SnapPart, unitCostForRanking } from './snap-part.js';
 
-/** Parts of one electrical model; `members` sorted by part number, location, id. */
+/** Parts of one electrical model: members `start .. end - 1` of the kind's {@link MemberTable}. */
 export interface ModelGroup {
   readonly kind: PartKind;
   /** Any member: they share every model field. */
   readonly model: SnapPart;
-  readonly members: readonly SnapPart[];
+  readonly start: number;
+  readonly end: number;
 }
 
-/** The prepared stock: groups of each kind, in ascending value. */
+/**
+ * Every part of one kind, group by group; within a group ordered for the cost tie rule (known unit
+ * cost ascending, unknown last, then by tie key).
+ */
+export interface MemberTable {
+  readonly parts: readonly SnapPart[];
+  /** {@link partTieKey} of each part. */
+  readonly keys: readonly string[];
+  /** {@link unitCostForRanking} of each part. */
+  readonly costs: Float64Array;
+  readonly available: Float64Array;
+}
+
+/** The prepared stock: groups of each kind (in ascending value) and their members. */
 export interface StockIndex {
   readonly groups: Readonly<Record<PartKind, readonly ModelGroup[]>>;
+  readonly members: Readonly<Record<PartKind, MemberTable>>;
   readonly partCount: number;
   /** Whether identical models were merged (false: one group per part, for reference searches). */
   readonly merged: boolean;
@@ -57,11 +72,27 @@ export function buildStockIndex(parts: readonly SnapPart[], options: { merge?: b
     else byKey.set(key, [part]);
   }
   const lists = merge ? [...byKey.values()] : singles;
+  const sorted: Record<PartKind, SnapPart[][]> = { capacitor: [], inductor: [] };
+  for (const list of lists) sorted[list[0].kind].push(list);
   const groups: Record<PartKind, ModelGroup[]> = { capacitor: [], inductor: [] };
-  for (const list of lists) {
-    const members = list.length > 1 ? [...list].sort((a, b) => (partTieKey(a) < partTieKey(b) ? -1 : 1)) : list;
-    groups[list[0].kind].push({ kind: list[0].kind, model: members[0], members });
+  const members = {} as Record<PartKind, MemberTable>;
+  for (const kind of ['capacitor', 'inductor'] as const) {
+    sorted[kind].sort((a, b) => a[0].value - b[0].value);
+    const parts: SnapPart[] = [];
+    const keys: string[] = [];
+    const costs: number[] = [];
+    for (const list of sorted[kind]) {
+      const entries = list.map((part) => ({ part, key: partTieKey(part), cost: unitCostForRanking(part.unitCost) }));
+      if (entries.length > 1) entries.sort((a, b) => a.cost - b.cost || (a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
+      const start = parts.length;
+      for (const e of entries) {
+        parts.push(e.part);
+        keys.push(e.key);
+        costs.push(e.cost);
+      }
+      groups[kind].push({ kind, model: entries[0].part, start, end: parts.length });
+    }
+    members[kind] = { parts, keys, costs: Float64Array.from(costs), available: Float64Array.from(parts, (p) => p.available) };
   }
-  for (const kind of ['capacitor', 'inductor'] as const) groups[kind].sort((a, b) => a.model.value - b.model.value);
-  return { groups, partCount: parts.length, merged: merge };
+  return { groups, members, partCount: parts.length, merged: merge };
 }
