@@ -1,3 +1,4 @@
+import { resolve } from 'node:path';
 /**
  * Server configuration, read once from the environment. Every variable has a default for the
  * embedded mode that `npm start` runs; README.md lists them all.
@@ -46,7 +47,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     loginRateLimit: intVar(env, 'LOGIN_RATE_LIMIT', 10),
     loginWindowMs: intVar(env, 'LOGIN_RATE_WINDOW_MS', 15 * 60 * 1000),
     logLevel: env.LOG_LEVEL ?? 'info',
-    staticDir: env.STATIC_DIR ?? '',
+    staticDir: env.STATIC_DIR ? resolve(env.STATIC_DIR) : '',
     smtp: {
       host: env.SMTP_HOST ?? '127.0.0.1',
       port: intVar(env, 'SMTP_PORT', 2525),
