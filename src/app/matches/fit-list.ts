@@ -59,10 +59,15 @@ export class FitList {
     return value === null ? '—' : `${value.toFixed(2)} dB`;
   }
 
-  /** The fit's yield within the loss budget, when the server sends one (a share from 0 to 1). */
-  protected yieldOf(fit: Fit): number | null {
-    const value = (fit as Fit & { yield?: unknown }).yield;
-    return typeof value === 'number' && Number.isFinite(value) ? value : null;
+  /**
+   * The fit's yield within the loss budget, as the server reports it (`yield`, a share from 0 to 1,
+   * and `yieldBudgetDb`; the snapper's fit report), written for people: "97.4 % within 0.5 dB".
+   */
+  protected yieldText(fit: Fit): string {
+    const { yield: share, yieldBudgetDb: budget } = fit as Fit & { yield?: unknown; yieldBudgetDb?: unknown };
+    if (typeof share !== 'number' || !Number.isFinite(share)) return '—';
+    const within = typeof budget === 'number' && Number.isFinite(budget) ? ` within ${budget} dB` : '';
+    return `${(share * 100).toFixed(1)} %${within}`;
   }
 
   /** Flags of the fit that no element shows already (e.g. a rating checked on the whole fit). */

@@ -118,6 +118,8 @@ describe('MatchesPage', () => {
     expect(rows[0].textContent).toContain('f0/SRF 0.18');
     expect(rows[0].textContent).toContain('0.61 dB');
     expect(rows[0].textContent).toContain('TPG 0.944');
+    expect(rows[0].querySelector('[data-testid="fit-yield"]')?.textContent?.trim()).toBe('97.4 % within 0.5 dB');
+    expect(rows[1].querySelector('[data-testid="fit-yield"]')?.textContent?.trim()).toBe('—');
     expect(rows[1].textContent).toContain('×2');
     expect(rows[1].textContent).toContain('two in parallel');
     const chips = Array.from(rows[1].querySelectorAll<HTMLElement>('mat-chip')).map((chip) => chip.textContent?.trim());
