@@ -22,6 +22,8 @@ import { invitationsRouter, setPasswordRouter } from './routes/invitations/invit
 import { outboxRouter } from './routes/outbox/outbox-router.js';
 import { buildsRouter } from './routes/builds/builds-router.js';
 import { shortfallRouter } from './routes/shortfall/shortfall-router.js';
+import { matchesRouter } from './routes/matches/matches-router.js';
+import { settingsRouter } from './routes/settings/settings-router.js';
 
 /** Builds the app on an open (models initialised, migrated) `sequelize`. */
 export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Logger): express.Express {
@@ -58,6 +60,8 @@ export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Lo
   app.use('/api/outbox', outboxRouter(ctx));
   app.use('/api/builds', buildsRouter(ctx));
   app.use('/api/shortfall', shortfallRouter(ctx));
+  app.use('/api/matches', matchesRouter(ctx));
+  app.use('/api/settings', settingsRouter(ctx));
 
   app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `No API route ${req.method} ${req.originalUrl}.`)));
 

@@ -8,6 +8,7 @@ import * as usersAndAudit from './20261202-0001-users-and-audit.js';
 import * as stock from './20261202-0002-stock.js';
 import * as stockBulkKeys from './20261202-0002-stock-bulk-keys.js';
 import * as mailAndUserTokens from './20261202-0003-mail-and-user-tokens.js';
+import * as matchesAndSettings from './20261202-0004-matches-and-settings.js';
 import * as buildsAndShortfall from './20261202-0005-builds-and-shortfall.js';
 
 interface MigrationModule {
@@ -19,6 +20,7 @@ const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261202-0001-users-and-audit', module: usersAndAudit },
   { name: '20261202-0002-stock', module: stock },
   { name: '20261202-0003-mail-and-user-tokens', module: mailAndUserTokens },
+  { name: '20261202-0004-matches-and-settings', module: matchesAndSettings },
   { name: '20261202-0005-builds-and-shortfall', module: buildsAndShortfall },
   { name: '20261202-0002-stock-bulk-keys', module: stockBulkKeys },
 ];

@@ -12,11 +12,14 @@ import { BuildMatch } from './build-match.js';
 import { Reservation } from './reservation.js';
 import { ShortfallList } from './shortfall-list.js';
 import { ShortfallLine } from './shortfall-line.js';
+import { Match } from './match.js';
+import { OrganisationSetting } from './organisation-setting.js';
 
 export { User, AuditEntry };
 export { Part, StockImport, StockImportChange };
 export { OutboundMail, UserToken };
 export { Build, BuildMatch, Reservation, ShortfallList, ShortfallLine };
+export { Match, OrganisationSetting };
 
 /** Initialises all models on `sequelize` (call once per instance, before the first query). */
 export function initModels(sequelize: Sequelize): void {
@@ -32,4 +35,6 @@ export function initModels(sequelize: Sequelize): void {
   Reservation.initModel(sequelize);
   ShortfallList.initModel(sequelize);
   ShortfallLine.initModel(sequelize);
+  Match.initModel(sequelize);
+  OrganisationSetting.initModel(sequelize);
 }

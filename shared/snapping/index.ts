@@ -17,3 +17,5 @@ export * from './snap-part.js';
 export * from './snap-problem.js';
 export * from './snapped-fit.js';
 export * from './stock-index.js';
+export * from './match-sweep.js';
+export * from './saved-match.js';

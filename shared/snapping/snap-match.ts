@@ -65,7 +65,7 @@ export interface SnappingSummary {
 
 /** The solve answer with the snapping extension. */
 export interface SnappedSolveResponse extends SolveResponse {
-  networks: (SolveResponse['networks'][number] & { fits: SnappedFit[] })[];
+  networks: (Omit<SolveResponse['networks'][number], 'fits'> & { fits: SnappedFit[] })[];
   snapping: SnappingSummary;
 }
 

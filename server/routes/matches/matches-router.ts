@@ -1,0 +1,42 @@
+/**
+ * Matches (api.md "Matches"): `POST /api/matches/solve` (any role, saves nothing), `POST /api/matches`
+ * (designer or admin), `GET /api/matches` and `GET /api/matches/:id` (any role).
+ */
+import { Router } from 'express';
+import type { SolveRequest } from '../../../shared/api/matches.js';
+import type { AppContext } from '../../app-context.js';
+import { requireRole } from '../../auth/passport.js';
+import { badRequest } from '../../errors.js';
+import { parseRequest } from '../../validation.js';
+import { listMatches, readMatch } from '../../services/matches/read-matches.js';
+import { saveMatch } from '../../services/matches/save-match.js';
+import { solveMatch } from '../../services/matches/solve-match.js';
+import { listMatchesSchema, saveMatchSchema } from './matches-request.js';
+
+/** The match routes. */
+export function matchesRouter(ctx: AppContext): Router {
+  const router = Router();
+  router.use(ctx.requireSignIn);
+
+  router.post('/solve', async (req, res) => {
+    const solved = await solveMatch(ctx.sequelize, req.body);
+    res.json(solved.response);
+  });
+
+  router.get('/', async (req, res) => {
+    const query = parseRequest(listMatchesSchema, req.query, 'match list query');
+    res.json(await listMatches(query.page, query.pageSize));
+  });
+
+  router.post('/', requireRole('designer', 'admin'), async (req, res) => {
+    const body = parseRequest(saveMatchSchema, req.body, 'saved match');
+    res.status(201).json(await saveMatch(ctx.sequelize, req.currentUser!.id, { ...body, request: body.request as unknown as SolveRequest }));
+  });
+
+  router.get('/:id', async (req, res) => {
+    const id = Number(req.params.id);
+    if (!Number.isInteger(id) || id <= 0) throw badRequest(`A match id must be a positive whole number, got "${req.params.id}".`, [{ field: 'id', value: req.params.id, message: 'not a positive whole number' }]);
+    res.json(await readMatch(ctx.sequelize, id));
+  });
+  return router;
+}

@@ -1,0 +1,61 @@
+/**
+ * `POST /api/matches/solve` (api.md "Matches"): read the request, the settings and the stock, and let
+ * the snapper fill the fits (shared/snapping/snap-match.ts). Saves nothing.
+ */
+import type { Sequelize, Transaction } from 'sequelize';
+import { isEngineInputError } from '../../../shared/engine/engine-input-error.js';
+import { parseSolveRequest, type SolveInput } from '../../../shared/engine/solve-request.js';
+import { snapMatch, type SnappedSolveResponse, type SnapSettings } from '../../../shared/snapping/snap-match.js';
+import type { SnapPart } from '../../../shared/snapping/snap-part.js';
+import { badRequest } from '../../errors.js';
+import { readSettings } from '../settings/read-settings.js';
+import { loadStockIndex } from './load-stock-index.js';
+
+/** A solved request with everything a save needs. */
+export interface SolvedMatch {
+  input: SolveInput;
+  settings: SnapSettings;
+  response: SnappedSolveResponse;
+  parts: SnapPart[];
+}
+
+/**
+ * The request checked into SI numbers.
+ * @throws 400 `invalid_input` whose details name each bad field (engine solve-request.ts)
+ */
+export function readSolveRequest(body: unknown, what = 'solve request'): SolveInput {
+  try {
+    return parseSolveRequest(body);
+  } catch (error) {
+    if (!isEngineInputError(error)) throw error;
+    throw badRequest(
+      `The ${what} is not valid: ${error.message}`,
+      error.details.map((d) => ({ field: d.field, value: d.value, message: d.message })),
+    );
+  }
+}
+
+/** Solves `body` against the stock as it is now. */
+export async function solveMatch(sequelize: Sequelize, body: unknown, transaction?: Transaction): Promise<SolvedMatch> {
+  const input = readSolveRequest(body);
+  const objectiveGiven = typeof body === 'object' && body !== null && (body as { objective?: unknown }).objective != null;
+  const org = await readSettings(transaction);
+  const settings: SnapSettings = {
+    usableSrfFraction: org.usableSrfFraction,
+    excludeAboveLimit: org.excludeAboveLimit,
+    defaultObjective: org.defaultObjective,
+    lossBudgetDb: org.lossBudgetDb,
+  };
+  const { index, parts } = await loadStockIndex(sequelize, { location: input.location }, transaction);
+  let response: SnappedSolveResponse;
+  try {
+    response = snapMatch(input, index, settings, { objectiveGiven, location: input.location });
+  } catch (error) {
+    if (isEngineInputError(error)) throw badRequest(`The solve request is not valid: ${error.message}`, error.details.map((d) => ({ field: d.field, value: d.value, message: d.message })));
+    throw error;
+  }
+  if (input.location && parts.length === 0) {
+    response.notes = [...(response.notes ?? []), `No part of the stock list is at location "${input.location}"; check its spelling (GET /api/parts/locations lists them).`];
+  }
+  return { input, settings, response, parts };
+}
