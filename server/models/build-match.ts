@@ -9,8 +9,11 @@ export interface PlannedElement {
   /** Ideal value at f0, F or H. */
   idealValue: number;
   arrangement: Arrangement;
-  /** Parts by stock code, with how many of each one board needs for this element. */
-  parts: { partNumber: string; perBoard: number }[];
+  /**
+   * Parts by stock code, with how many of each one board needs for this element, and the part row
+   * and location the match chose when it knows them (a stock code is unique only within a location).
+   */
+  parts: { partNumber: string; perBoard: number; partId?: number; location?: string }[];
 }
 
 /** The design of a saved match as the build planned it (a snapshot: the match may change later). */

@@ -1,7 +1,7 @@
 /**
  * Concurrency (handbook quality.md): many builds reserving one scarce part at once never oversell.
- * 50 builds of one board each, started together, each needing one 6.8 pF capacitor of which 10 are
- * on hand and nothing else within the loss budget: exactly 10 get it, the other 40 carry it on
+ * 50 builds of one board each, sent together to `POST /api/builds`, each needing one 6.8 pF
+ * capacitor of which 10 are on hand and nothing else within the loss budget: exactly 10 get it, the other 40 carry it on
  * their shortfall lists, and PostgreSQL itself shows no more reserved than on hand.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -9,12 +9,12 @@ import request from 'supertest';
 import { QueryTypes } from 'sequelize';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { uploadStock } from '../fixtures/stock/stock-upload.js';
-import { createBuild } from '../../server/services/builds/create-build.js';
-import { readBuild } from '../../server/services/builds/read-builds.js';
-import { stockFile, stockRow, subGhzDesign } from './builds-scenario.js';
+import type { BuildResponse } from '../../shared/api/builds.js';
+import { stockFile, stockRow } from './builds-scenario.js';
 
 let t: TestApp;
 let designer: { id: number; token: string };
+let matchId: number;
 
 beforeAll(async () => {
   t = await startTestApp();
@@ -26,6 +26,14 @@ beforeAll(async () => {
     stockFile(stockRow('TW-C0402-6P8', 'C', '6.8pF', 'C', '10GHz', '0.2', 10), stockRow('TW-L0402-10N', 'L', '10nH', 'J', '6GHz', '0.5', 500)),
   );
   expect(upload.status, JSON.stringify(upload.body)).toBe(200);
+  // The designer saves the 868 MHz match with the fit the snapper ranks first: the stock has one
+  // capacitor and one inductor, so it is shunt TW-C0402-6P8 and series TW-L0402-10N.
+  const saved = await request(t.app)
+    .post('/api/matches')
+    .set('Authorization', `Bearer ${designer.token}`)
+    .send({ name: '868 MHz antenna', request: { source: 50, load: '12-j35', frequencyHz: '868MHz' }, chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 } });
+  expect(saved.status, JSON.stringify(saved.body)).toBe(201);
+  matchId = saved.body.id;
 });
 afterAll(async () => {
   await t?.close();
@@ -33,13 +41,15 @@ afterAll(async () => {
 
 describe('50 builds at once against 10 on hand', () => {
   it('reserves exactly 10, lists the other 40 as short, and never holds more than is on hand', async () => {
-    const ids = await Promise.all(
+    const answers = await Promise.all(
       Array.from({ length: 50 }, (_, i) =>
-        createBuild(t.sequelize, { name: `node-${i}`, quantity: 1, reserve: true, plans: [{ matchId: 1, matchName: '868 MHz antenna', design: subGhzDesign() }] }, designer.id),
+        request(t.app).post('/api/builds').set('Authorization', `Bearer ${designer.token}`).send({ name: `node-${i}`, quantity: 1, matchIds: [matchId] }),
       ),
     );
+    for (const answer of answers) expect(answer.status, JSON.stringify(answer.body)).toBe(201);
+    const ids = answers.map((a) => a.body.id as number);
     expect(new Set(ids).size).toBe(50);
-    const builds = await Promise.all(ids.map((id) => readBuild(id)));
+    const builds: BuildResponse[] = answers.map((a) => a.body);
 
     const capacitorLine = (b: (typeof builds)[number]) => b.lines.find((l) => l.position === 'shunt')!;
     const got = builds.filter((b) => capacitorLine(b).reserved === 1);
@@ -85,11 +95,11 @@ describe('builds and stock imports at once', () => {
     const recount = (n: number) =>
       uploadStock(t.app, stores.token, stockFile(stockRow('TW-L0402-10N', 'L', '10nH', 'J', '6GHz', '0.5', 500 + n)), { fileName: `recount-${n}.csv` });
     const builds = Array.from({ length: 20 }, (_, i) =>
-      createBuild(t.sequelize, { name: `mixed-${i}`, quantity: 2, reserve: true, plans: [{ matchId: 1, matchName: '868 MHz antenna', design: subGhzDesign() }] }, designer.id),
+      request(t.app).post('/api/builds').set('Authorization', `Bearer ${designer.token}`).send({ name: `mixed-${i}`, quantity: 2, matchIds: [matchId] }),
     );
     const imports = Array.from({ length: 5 }, (_, i) => recount(i + 1));
     const [built, uploaded] = await Promise.all([Promise.all(builds), Promise.all(imports)]);
-    expect(built).toHaveLength(20);
+    expect(built.map((b) => b.status)).toEqual(Array(20).fill(201));
     expect(uploaded.map((r) => r.status)).toEqual([200, 200, 200, 200, 200]);
 
     const rows = await t.sequelize.query<{ part_number: string; quantity: number; reserved: number; held: string }>(

@@ -128,7 +128,13 @@ export function allocateStock(plans: readonly PlanToAllocate[], boards: number, 
     lossBudgetDb: rules.lossBudgetDb,
   });
   const rowsOf = (plan: PlanToAllocate) => (plan.design.location ? rows.filter((r) => r.location === plan.design.location) : rows);
-  const resolve = (plan: PlanToAllocate, partNumber: string): StockRow | null => {
+  const rowById = new Map(rows.map((row) => [row.id, row]));
+  /** The chosen part's row: the very row the match chose when it names one, else the row of that stock code with most available. */
+  const resolve = (plan: PlanToAllocate, partNumber: string, partId?: number): StockRow | null => {
+    if (partId !== undefined) {
+      const row = rowById.get(partId);
+      if (row && row.partNumber === partNumber) return row;
+    }
     let best: StockRow | null = null;
     for (const row of rowsOf(plan)) {
       if (row.partNumber !== partNumber) continue;
@@ -144,7 +150,7 @@ export function allocateStock(plans: readonly PlanToAllocate[], boards: number, 
         planIndex,
         elementIndex,
         arrangement: element.arrangement,
-        slots: element.parts.map((p) => ({ row: resolve(plan, p.partNumber), partNumber: p.partNumber, perBoard: p.perBoard, need: boards * p.perBoard, cap: null })),
+        slots: element.parts.map((p) => ({ row: resolve(plan, p.partNumber, p.partId), partNumber: p.partNumber, perBoard: p.perBoard, need: boards * p.perBoard, cap: null })),
         movedFrom: null,
         tried: new Set(),
         short: null,
@@ -204,7 +210,6 @@ export function allocateStock(plans: readonly PlanToAllocate[], boards: number, 
       message: `${why}; moved ${plans[state.planIndex].matchName} ${plans[state.planIndex].design.elements[state.elementIndex].position} ${from.join(' + ')} to ${row.partNumber}, worst case ${db(toWorst)}${fromWorst === null ? '' : ` instead of ${db(fromWorst)}`}`,
     });
   };
-  const rowById = new Map(rows.map((row) => [row.id, row]));
   const packageOf = (state: ElementState) => state.slots.find((s) => s.row)?.row?.package ?? null;
   const kindWords = (state: ElementState) => plans[state.planIndex].design.elements[state.elementIndex].kind;
 

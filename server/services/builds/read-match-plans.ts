@@ -5,11 +5,12 @@
  * and chosen fit).
  */
 import type { Transaction } from 'sequelize';
-import type { Fit, NetworkPlacement, SolveRequest } from '../../../shared/api/matches.js';
+import type { Fit, NetworkElement, NetworkPlacement, SolveRequest } from '../../../shared/api/matches.js';
 import { isEngineInputError } from '../../../shared/engine/engine-input-error.js';
 import { solveLNetworks } from '../../../shared/engine/l-network.js';
 import { parseSolveRequest } from '../../../shared/engine/solve-request.js';
 import { HttpError, unprocessable } from '../../errors.js';
+import { Match } from '../../models/index.js';
 import type { PlannedElement } from '../../models/build-match.js';
 import type { PlanToAllocate } from './allocate-stock.js';
 
@@ -21,9 +22,14 @@ export interface SavedMatchForPlan {
   name: string;
   request: SolveRequest;
   chosen: { placement: NetworkPlacement; solution: 1 | 2; rank: number };
-  /** The chosen fit as it was saved (its elements with parts and arrangement). */
+  /** The chosen fit as it was saved (its elements with parts and arrangement; parts may carry their row id and location). */
   fit: Pick<Fit, 'elements'>;
+  /** The ideal network as it was saved; solved again from the request when absent. */
+  network?: { elements: Pick<NetworkElement, 'position' | 'kind' | 'value'>[] };
 }
+
+/** A fit part as saved, with the row id and location the snapper adds. */
+type SavedPart = Fit['elements'][number]['parts'][number] & { partId?: number; location?: string };
 
 /**
  * The plan of one saved match: ports and frequency from its request, the ideal network of its chosen
@@ -41,9 +47,9 @@ export function planOfSavedMatch(saved: SavedMatchForPlan): PlanToAllocate {
     if (isEngineInputError(error)) throw refuse(`its request does not read (${error.message})`);
     throw error;
   }
-  const network = solveLNetworks(input.source, input.load, input.frequencyHz).networks.find(
-    (n) => n.placement === saved.chosen.placement && n.solution === saved.chosen.solution,
-  );
+  const network =
+    saved.network ??
+    solveLNetworks(input.source, input.load, input.frequencyHz).networks.find((n) => n.placement === saved.chosen.placement && n.solution === saved.chosen.solution);
   if (!network) throw refuse(`it has no ${saved.chosen.placement} network ${saved.chosen.solution}`);
   const elements: PlannedElement[] = network.elements.map((ideal) => {
     const fitted = saved.fit.elements.find((e) => e.position === ideal.position);
@@ -54,7 +60,12 @@ export function planOfSavedMatch(saved: SavedMatchForPlan): PlanToAllocate {
       kind: ideal.kind,
       idealValue: ideal.value,
       arrangement: fitted.arrangement,
-      parts: fitted.parts.map((p) => ({ partNumber: p.partNumber, perBoard: p.quantity })),
+      parts: (fitted.parts as SavedPart[]).map((p) => ({
+        partNumber: p.partNumber,
+        perBoard: p.quantity,
+        ...(p.partId !== undefined ? { partId: p.partId } : {}),
+        ...(p.location !== undefined ? { location: p.location } : {}),
+      })),
     };
   });
   return {
@@ -73,10 +84,31 @@ export function planOfSavedMatch(saved: SavedMatchForPlan): PlanToAllocate {
 }
 
 /**
- * The plans of `matchIds`, in the order given.
- * @throws 404 naming every id that is not a saved match
+ * The plans of `matchIds`, in the order given, from the saved matches (server/models/match.ts: the
+ * request, the chosen fit with its parts, and the ideal network it belongs to).
+ * @throws 404 naming every id that is not a saved match; 422 for a match that cannot be planned
  */
-export async function readMatchPlans(matchIds: readonly number[], _transaction?: Transaction): Promise<PlanToAllocate[]> {
-  // Saved matches (server/models/match.ts) are not in the code base yet; until they are, say so plainly.
-  throw new HttpError(503, 'matches_unavailable', `Saved matches cannot be read yet, so no build can be planned from ${matchIds.join(', ')}.`);
+export async function readMatchPlans(matchIds: readonly number[], transaction?: Transaction): Promise<PlanToAllocate[]> {
+  const found = await Match.findAll({ where: { id: [...matchIds] }, transaction });
+  const byId = new Map(found.map((m) => [Number(m.id), m]));
+  const missing = matchIds.filter((id) => !byId.has(id));
+  if (missing.length > 0) {
+    throw new HttpError(
+      404,
+      'not_found',
+      `Saved match${missing.length > 1 ? 'es' : ''} ${missing.join(', ')} ${missing.length > 1 ? 'were' : 'was'} not found.`,
+      missing.map((id) => ({ field: 'matchIds', value: id, message: 'no saved match has this id' })),
+    );
+  }
+  return matchIds.map((id) => {
+    const match = byId.get(id)!;
+    return planOfSavedMatch({
+      id,
+      name: match.name,
+      request: match.request,
+      chosen: { placement: match.placement, solution: match.solution, rank: match.rank },
+      fit: match.fit,
+      network: match.network,
+    });
+  });
 }

@@ -37,7 +37,8 @@ export function partSpecOfRow(row: PartRow): PartSpec {
 }
 
 /**
- * Locks, in one statement ordered by id, the rows of every part the chosen fits name and every
+ * Locks, in one statement ordered by id, the rows of every part the chosen fits name (by row id and
+ * by stock code) and every
  * part an element could be moved to (its kind, nominal value within {@link SUBSTITUTE_VALUE_WINDOW}
  * of the ideal value, at the match's location if it named one).
  */
@@ -51,6 +52,11 @@ async function lockCandidateRows(sequelize: Sequelize, transaction: Transaction,
     if (numbers.length > 0) {
       conditions.push(`(part_number IN (:numbers${p})${where})`);
       replacements[`numbers${p}`] = numbers;
+    }
+    const ids = plan.design.elements.flatMap((e) => e.parts.flatMap((part) => (part.partId === undefined ? [] : [part.partId])));
+    if (ids.length > 0) {
+      conditions.push(`(id IN (:ids${p}))`);
+      replacements[`ids${p}`] = ids;
     }
     plan.design.elements.forEach((element, e) => {
       conditions.push(`(kind = :kind${p}_${e} AND value_si BETWEEN :low${p}_${e} AND :high${p}_${e}${where})`);
