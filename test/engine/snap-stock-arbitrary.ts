@@ -25,7 +25,7 @@ export interface RandomMatch {
 }
 
 /** Random ports (R 1..500 ohm, X -300..300 ohm), f0 1 MHz..5 GHz, and stock options. */
-export function randomMatchArbitrary(maxPartsPerKind = 6): fc.Arbitrary<RandomMatch> {
+export function randomMatchArbitrary(maxPartsPerKind = 6, minPartsPerKind = 0): fc.Arbitrary<RandomMatch> {
   return fc.record({
     source: fc.record({ re: fc.double({ min: 1, max: 500, noNaN: true }), im: fc.double({ min: -300, max: 300, noNaN: true }) }),
     load: fc.record({ re: fc.double({ min: 1, max: 500, noNaN: true }), im: fc.double({ min: -300, max: 300, noNaN: true }) }),
@@ -35,7 +35,7 @@ export function randomMatchArbitrary(maxPartsPerKind = 6): fc.Arbitrary<RandomMa
     usableSrfFraction: fc.constantFrom(0.5, 0.7, 1),
     excludeAboveLimit: fc.boolean(),
     fits: fc.integer({ min: 1, max: 5 }),
-    partsPerKind: fc.integer({ min: 0, max: maxPartsPerKind }),
+    partsPerKind: fc.integer({ min: minPartsPerKind, max: maxPartsPerKind }),
     stockSeed: fc.integer({ min: 1, max: 2 ** 31 - 1 }),
   });
 }
