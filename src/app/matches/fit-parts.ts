@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { type Observable, forkJoin, map, of } from 'rxjs';
 
-import type { Fit } from '../../../shared/api/matches.js';
+import type { Fit, FitPart } from '../../../shared/api/matches.js';
 import type { PartListResponse } from '../../../shared/api/stock.js';
 import { type StockedPartModelData } from './tpg-sweep.js';
 
@@ -19,13 +19,23 @@ export class FitParts {
    * caller says the curve cannot be drawn).
    */
   partsOf(fit: Fit): Observable<Map<string, StockedPartModelData>> {
-    const wanted = [...new Set(fit.elements.flatMap((element) => element.parts.map((part) => part.partNumber)))];
-    if (wanted.length === 0) return of(new Map());
+    // The solve answer names each part's stock row (`partId`, an extension); a part number stocked
+    // at two locations is then the right row, else the first row with that number.
+    const wanted = new Map<string, number | null>();
+    for (const element of fit.elements) {
+      for (const part of element.parts as (FitPart & { partId?: number })[]) wanted.set(part.partNumber, part.partId ?? null);
+    }
+    if (wanted.size === 0) return of(new Map());
     return forkJoin(
-      wanted.map((partNumber) =>
+      [...wanted].map(([partNumber, partId]) =>
         this.http
-          .get<PartListResponse>('/api/parts', { params: { search: partNumber, pageSize: 20 } })
-          .pipe(map((answer) => answer.items.find((item) => item.partNumber === partNumber) ?? null)),
+          .get<PartListResponse>('/api/parts', { params: { search: partNumber, pageSize: 50 } })
+          .pipe(
+            map(
+              (answer) =>
+                answer.items.find((item) => item.id === partId) ?? answer.items.find((item) => item.partNumber === partNumber) ?? null,
+            ),
+          ),
       ),
     ).pipe(
       map((found) => {

@@ -21,7 +21,13 @@ const SAVED_LIST: SavedMatchSummary[] = [
     name: 'Soil node 868 MHz chip antenna',
     request: { source: '50', load: '12-j35', frequencyHz: '868MHz' },
     chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
+    objective: 'worst-case',
     createdAt: '2026-11-30T09:15:00Z',
+    createdBy: { id: 7, name: 'Dev Okafor', email: 'designer@tarnwick.example' },
+    frequencyHz: 868e6,
+    partNumbers: ['TW-C0402-6P8 x1', 'TW-L0402-10N x1'],
+    totalDb: 0.25,
+    worstCaseDb: 0.61,
   },
 ];
 
@@ -46,7 +52,7 @@ describe('MatchesPage', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     page = fixture.nativeElement;
     fixture.detectChanges();
-    backend.expectOne({ method: 'GET', url: '/api/matches' }).flush(saved);
+    backend.expectOne({ method: 'GET', url: '/api/matches' }).flush({ items: saved, total: saved.length });
     await fixture.whenStable();
   }
 
@@ -184,14 +190,16 @@ describe('MatchesPage', () => {
       },
       chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
     });
-    save.flush({ id: 11, name: 'Soil node 868 MHz chip antenna' });
+    save.flush({ ...SAVED_LIST[0] }, { status: 201, statusText: 'Created' });
     const list = await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/matches' }));
-    list.flush(SAVED_LIST);
+    list.flush({ items: SAVED_LIST, total: 1 });
     await fixture.whenStable();
     const rows = all('saved-match-row');
     expect(rows.length).toBe(1);
     expect(rows[0].textContent).toContain('Soil node 868 MHz chip antenna');
     expect(rows[0].textContent).toContain('868 MHz');
+    expect(rows[0].textContent).toContain('worst case 0.61 dB');
+    expect(rows[0].textContent).toContain('TW-C0402-6P8 x1, TW-L0402-10N x1');
   });
 
   it('shows a 400 answer next to the field it names', async () => {
@@ -218,23 +226,37 @@ describe('MatchesPage', () => {
     expect(all('network-card').length).toBe(0);
   });
 
-  it('reopens a saved match with its stored results', async () => {
+  it('reopens a saved match as saved, with its sweep, and notes what changed in stock', async () => {
     await open('purchasing', SAVED_LIST);
     fixture.componentRef.setInput('saved', '11');
     await fixture.whenStable();
+    const network = SOLVED.networks[0];
     const detail: SavedMatch = {
       ...SAVED_LIST[0],
-      request: SAVED_LIST[0].request!,
-      chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
-      fit: LOW_PASS_BEST,
-      result: SOLVED,
+      network: { ...network, fits: [] },
+      fit: { ...LOW_PASS_BEST, elements: LOW_PASS_BEST.elements.map((e) => ({ ...e, parts: e.parts.map((p) => ({ ...p, partId: 1, location: 'Shelf A', available: 4000, unitCost: '0.0120' })) })), yield: 0.974, yieldBudgetDb: 0.5, yieldSamples: 2000, objectiveDb: 0.61, stockCover: 4000, costPerBuild: '0.0240' },
+      settings: { usableSrfFraction: 0.5, excludeAboveLimit: false, lossBudgetDb: 0.5 },
+      parts: [],
       sweep: { frequenciesHz: [800e6, 868e6, 900e6], idealTpg: [0.9, 1, 0.95], fitTpg: [0.85, 0.944, 0.9] },
+      smith: {
+        ideal: { referenceOhm: 50, load: { re: 12, im: -35 }, target: { re: 50, im: 0 }, nodes: [], steps: [] },
+        fit: { referenceOhm: 50, load: { re: 12, im: -35 }, target: { re: 50, im: 0 }, nodes: [], steps: [] },
+      },
+      stockChanges: [{ partId: 2, partNumber: 'TW-L0402-10N', change: 'short' }],
     };
     backend.expectOne({ method: 'GET', url: '/api/matches/11' }).flush(detail);
     await fixture.whenStable();
 
     expect(page.querySelector('[data-testid="reopened-match"]')?.textContent).toContain('Soil node 868 MHz chip antenna');
-    expect(all('network-card').length).toBe(2);
+    expect(page.querySelector('[data-testid="reopened-match"]')?.textContent).toContain('by Dev Okafor');
+    // One card, the saved network with the saved fit, chosen.
+    const cards = all('network-card');
+    expect(cards.map((card) => card.dataset['placement'])).toEqual(['shunt-at-source']);
+    expect(all('fit-row').length).toBe(1);
+    expect(all('fit-choose')[0].getAttribute('aria-pressed')).toBe('true');
+    expect(all('match-note')[0].textContent).toContain('TW-L0402-10N no longer has enough available');
+    // Cautions are there although the saved answer carries none.
+    expect(all('match-cautions')[0].textContent).toContain('vector network analyser');
     // The saved sweep draws the fit, so no stock lookup is needed; nothing is solved again.
     backend.expectNone('/api/matches/solve');
     backend.expectNone((request) => request.url === '/api/parts');

@@ -22,6 +22,7 @@ import { MatchForm } from './match-form.js';
 import { MatchResults } from './match-results.js';
 import { answerOf, failureOf, latestAnswer } from './request-state.js';
 import type { ChosenFit, SavedMatch, SavedMatchSummary } from './saved-match.js';
+import { savedMatchView } from './saved-match-view.js';
 import { SavedMatchList } from './saved-match-list.js';
 
 /** How long a confirmation stays, in milliseconds. */
@@ -102,17 +103,16 @@ export class MatchesPage {
 
   /** The request that the results on screen answer. */
   protected readonly shownRequest = computed<SolveRequest | null>(() => {
-    const detail = this.reopened();
-    return detail?.result ? detail.request : this.submitted();
+    return this.reopened()?.request ?? this.submitted();
   });
   /** The saved match on screen, when one is reopened. */
   protected readonly reopened = computed<SavedMatch | null>(() =>
     this.saved() ? (answerOf(this.savedMatch()) ?? null) : null,
   );
-  /** The answer on screen: a reopened match's stored results, else the last solve's. */
+  /** The answer on screen: a reopened match as saved, else the last solve's. */
   protected readonly solution = computed<SolveResponse | undefined>(() => {
     const detail = this.reopened();
-    if (detail?.result) return detail.result;
+    if (detail) return savedMatchView(detail);
     return answerOf(this.solved());
   });
   /** The request as numbers, for the plots. */
@@ -171,10 +171,9 @@ export class MatchesPage {
   protected readonly preset = computed(() => this.reopened()?.request ?? null);
 
   constructor() {
-    // A reopened match whose results were not stored is solved again from its inputs.
+    // A reopened match lends its name to the save form, for saving a variant.
     effect(() => {
       const detail = this.reopened();
-      if (detail && !detail.result) this.submitted.set(detail.request);
       if (detail) this.matchName.set(detail.name);
     });
   }
@@ -216,6 +215,13 @@ export class MatchesPage {
 
   /** Whether a solve or a reopen is on its way. */
   protected readonly busy = computed(() => this.solved().status === 'loading' || this.savedMatch().status === 'loading');
+
+  /** `" on 30 Nov 2026 by Dev Okafor"`, from what the server says. */
+  protected savedWhen(detail: SavedMatch): string {
+    const at = new Date(detail.createdAt);
+    const date = Number.isNaN(at.getTime()) ? '' : ` on ${at.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' })}`;
+    return `${date}${detail.createdBy ? ` by ${detail.createdBy.name}` : ''}`;
+  }
 
   protected openId(): number | null {
     const id = Number(this.saved());

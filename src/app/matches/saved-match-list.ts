@@ -30,6 +30,9 @@ import type { SavedMatchSummary } from './saved-match.js';
             <mat-icon matListItemIcon aria-hidden="true">bookmark</mat-icon>
             <span matListItemTitle>{{ match.name }}</span>
             <span matListItemLine class="line">{{ describe(match) }}</span>
+            @if (match.partNumbers.length > 0) {
+              <span matListItemLine class="line parts">{{ match.partNumbers.join(', ') }}</span>
+            }
           </a>
         }
       </mat-nav-list>
@@ -39,6 +42,7 @@ import type { SavedMatchSummary } from './saved-match.js';
     :host { display: block; }
     .empty { margin: 0; color: var(--mat-sys-on-surface-variant); }
     .line { font-variant-numeric: tabular-nums; }
+    .parts { font-family: ui-monospace, 'DejaVu Sans Mono', monospace; font-size: 12px; }
   `,
 })
 export class SavedMatchList {
@@ -63,10 +67,10 @@ export class SavedMatchList {
       }
     }
     if (match.chosen) parts.push(`${placementName(match.chosen.placement)} ${match.chosen.solution}, fit ${match.chosen.rank}`);
-    if (match.createdAt) {
-      const saved = new Date(match.createdAt);
-      if (!Number.isNaN(saved.getTime())) parts.push(saved.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' }));
-    }
+    if (Number.isFinite(match.worstCaseDb)) parts.push(`worst case ${match.worstCaseDb.toFixed(2)} dB`);
+    const saved = new Date(match.createdAt);
+    if (!Number.isNaN(saved.getTime())) parts.push(saved.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' }));
+    if (match.createdBy) parts.push(match.createdBy.name);
     return parts.join(' · ');
   }
 }

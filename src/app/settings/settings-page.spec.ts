@@ -12,16 +12,18 @@ import { provideRouter } from '@angular/router';
 import { authInterceptor } from '../auth/auth-interceptor.js';
 import { BlankPage } from '../testing/blank-page.js';
 import { demoUser, storeSession } from '../testing/signed-in-user.js';
-import type { OrganisationSettings } from './organisation-settings.js';
+import type { OrganisationSettings, OrganisationSettingsResponse } from './organisation-settings.js';
 import { SettingsPage } from './settings-page.js';
 
-const STORED: OrganisationSettings = {
+const STORED: OrganisationSettingsResponse = {
   usableSrfFraction: 0.5,
   excludeAboveLimit: false,
   defaultObjective: 'worst-case',
   lossBudgetDb: 0.5,
   preferredSeries: { capacitor: 'E24', inductor: 'E12' },
   attritionPercent: 5,
+  updatedAt: null,
+  updatedBy: null,
 };
 
 describe('SettingsPage', () => {
@@ -60,6 +62,7 @@ describe('SettingsPage', () => {
     expect(await (await select('settings-capacitor-series')).getValueText()).toBe('E48');
     expect(await (await select('settings-inductor-series')).getValueText()).toBe('E6');
     expect(await (await select('settings-default-objective')).getValueText()).toBe('Worst case over tolerances');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="settings-last-change"]')?.textContent).toContain('defaults stand');
   });
 
   it('puts every setting, the SRF share as a fraction', async () => {
@@ -86,8 +89,10 @@ describe('SettingsPage', () => {
       attritionPercent: 7.5,
     };
     expect(put.request.body).toEqual(expected);
-    put.flush(expected);
-    await fixture.whenStable();
+    put.flush({ ...expected, updatedAt: '2026-12-02T10:30:00Z', updatedBy: { id: 1, name: 'Ada Marsh', email: 'admin@tarnwick.example' } });
+    await vi.waitFor(() =>
+      expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="settings-last-change"]')?.textContent).toContain('by Ada Marsh'),
+    );
     expect(await (await input('settings-srf-fraction')).getValue()).toBe('40');
   });
 

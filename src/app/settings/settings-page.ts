@@ -12,10 +12,10 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { firstValueFrom } from 'rxjs';
 
 import type { Objective } from '../../../shared/api/matches.js';
-import { E_SERIES_NAMES, type ESeriesName } from '../../../shared/engine/index.js';
+import { PREFERRED_SERIES, type PreferredSeries, SETTINGS_LIMITS } from '../../../shared/api/settings.js';
 import { apiErrorDetails, apiErrorMessage } from '../api/api-error-message.js';
 import { isAnnouncedByInterceptor } from '../auth/auth-interceptor.js';
-import { type OrganisationSettings, OrganisationSettingsClient } from './organisation-settings.js';
+import { type OrganisationSettings, type OrganisationSettingsResponse, OrganisationSettingsClient } from './organisation-settings.js';
 
 /** How long a confirmation stays, in milliseconds. */
 const NOTICE_MS = 5000;
@@ -58,20 +58,23 @@ export class SettingsPage {
   private readonly client = inject(OrganisationSettingsClient);
   private readonly snackBar = inject(MatSnackBar);
 
-  protected readonly seriesNames: readonly ESeriesName[] = E_SERIES_NAMES;
+  protected readonly seriesNames: readonly PreferredSeries[] = PREFERRED_SERIES;
   protected readonly objectives: readonly { value: Objective; label: string }[] = [
     { value: 'worst-case', label: 'Worst case over tolerances' },
     { value: 'nominal', label: 'Nominal values at f0' },
     { value: 'band', label: 'Across the band' },
   ];
   protected readonly form = inject(NonNullableFormBuilder).group({
-    usableSrfPercent: [50, [Validators.required, Validators.min(1), Validators.max(100)]],
+    usableSrfPercent: [50, [Validators.required, Validators.min(1), Validators.max(SETTINGS_LIMITS.usableSrfFraction.max * 100)]],
     excludeAboveLimit: false,
     defaultObjective: 'worst-case' as Objective,
-    lossBudgetDb: [0.5, [Validators.required, Validators.min(0.01), Validators.max(20)]],
-    capacitorSeries: 'E24' as ESeriesName,
-    inductorSeries: 'E12' as ESeriesName,
-    attritionPercent: [5, [Validators.required, Validators.min(0), Validators.max(100)]],
+    lossBudgetDb: [0.5, [Validators.required, Validators.min(0.01), Validators.max(SETTINGS_LIMITS.lossBudgetDb.max)]],
+    capacitorSeries: 'E24' as PreferredSeries,
+    inductorSeries: 'E12' as PreferredSeries,
+    attritionPercent: [
+      5,
+      [Validators.required, Validators.min(SETTINGS_LIMITS.attritionPercent.min), Validators.max(SETTINGS_LIMITS.attritionPercent.max)],
+    ],
   });
 
   /** Whether the settings are being fetched. */
@@ -82,6 +85,8 @@ export class SettingsPage {
   protected readonly saving = signal(false);
   /** Why the last save failed, or null. */
   protected readonly saveError = signal<string | null>(null);
+  /** Who changed the settings last and when, or null while the defaults stand. */
+  protected readonly lastChange = signal<string | null>(null);
   /** Problems the server located, by field. */
   protected readonly fieldProblems = signal<Partial<Record<SettingsField, string>>>({});
 
@@ -138,7 +143,13 @@ export class SettingsPage {
     }
   }
 
-  private show(settings: OrganisationSettings): void {
+  private show(settings: OrganisationSettingsResponse): void {
+    const at = settings.updatedAt ? new Date(settings.updatedAt) : null;
+    this.lastChange.set(
+      at && !Number.isNaN(at.getTime())
+        ? `Last changed on ${at.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' })}${settings.updatedBy ? ` by ${settings.updatedBy.name}` : ''}.`
+        : 'The defaults stand: nobody has changed the settings yet.',
+    );
     this.form.setValue({
       usableSrfPercent: Number((settings.usableSrfFraction * 100).toPrecision(6)),
       excludeAboveLimit: settings.excludeAboveLimit,
