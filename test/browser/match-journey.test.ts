@@ -1,0 +1,66 @@
+/// <reference lib="dom" />
+/**
+ * Journey 2 of product.md in Chromium: a designer solves the demo scenario's 868 MHz chip-antenna
+ * match (12 - j35 ohm, invented in seeds/) against the demo stock, sees the ideal networks with their
+ * ranked fits, losses and flags, the TPG plot and the Smith chart with the cautions, saves a fit,
+ * and reopens it from the saved matches.
+ */
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { openBrowser, screenshot, signInAs, type BrowserSession } from '../support/browser.js';
+import { DEMO_PASSWORD } from '../../seeds/demo-accounts.js';
+
+const baseUrl = inject('baseUrl');
+let b: BrowserSession;
+const name = `Soil node 868 MHz antenna ${Date.now()}`;
+
+beforeAll(async () => {
+  b = await openBrowser();
+});
+afterAll(async () => {
+  await b?.close();
+});
+
+describe('the match workspace', () => {
+  it('solves, shows fits, plot, Smith chart and cautions, saves and reopens', async () => {
+    const { page } = b;
+    await signInAs(page, baseUrl, 'designer@tarnwick.example', DEMO_PASSWORD);
+    expect(new URL(page.url()).pathname).toBe('/matches');
+    await page.getByTestId('match-source').fill('50');
+    await page.getByTestId('match-load').fill('12-j35');
+    // Live parsing feedback reads the complex string back in ohms.
+    await expect.poll(async () => (await page.getByTestId('match-load-reading').textContent()) ?? '').toMatch(/12/);
+    await page.getByTestId('match-frequency').fill('868MHz');
+    await page.getByTestId('match-solve').click();
+
+    await expect.poll(() => page.getByTestId('network-card').count(), { timeout: 20_000 }).toBeGreaterThan(0);
+    // 12 - j35 to 50 ohm: Rs*GL = 50 * 12/(12^2+35^2) = 0.438 <= 1 and RL*Gs = 12/50 < 1, so both
+    // placements are feasible and each gives two solutions: four ideal networks.
+    expect(await page.getByTestId('network-card').count()).toBe(4);
+    await expect.poll(() => page.getByTestId('fit-row').count()).toBeGreaterThan(0);
+    const fitText = (await page.getByTestId('fit-row').first().textContent()) ?? '';
+    expect(fitText).toMatch(/dB/);
+    expect(fitText).toMatch(/TW-/);
+    await page.getByTestId('fit-choose').first().click();
+    await page.getByTestId('tpg-plot').waitFor();
+    await page.getByTestId('smith-chart').waitFor();
+    expect(await page.getByTestId('smith-fit-arc').count()).toBeGreaterThan(0);
+    expect(((await page.getByTestId('match-cautions').textContent()) ?? '').toLowerCase()).toMatch(/network analy[sz]er/);
+    await screenshot(page, 'match-solved');
+
+    await page.getByTestId('match-name').fill(name);
+    const saved = page.waitForResponse((r) => r.url().endsWith('/api/matches') && r.request().method() === 'POST');
+    await page.getByTestId('match-save').click();
+    expect((await saved).status()).toBe(201);
+    const row = page.getByTestId('saved-match-row').filter({ hasText: name });
+    await row.waitFor();
+
+    // Reopen from a fresh page load: the saved match comes back with its fit and plot.
+    await page.goto(`${baseUrl}/matches`);
+    await page.getByTestId('saved-match-row').filter({ hasText: name }).click();
+    await page.getByTestId('reopened-match').waitFor();
+    expect((await page.getByTestId('reopened-match').textContent()) ?? '').toContain(name);
+    await page.getByTestId('tpg-plot').waitFor();
+    await page.getByTestId('smith-chart').waitFor();
+    await screenshot(page, 'match-reopened');
+  });
+});
