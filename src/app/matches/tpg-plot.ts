@@ -151,7 +151,8 @@ export class TpgPlot {
             max: ideal.frequenciesHz[ideal.frequenciesHz.length - 1] / divisor,
             title: { display: true, text: `Frequency (${unit})`, color: colours.text },
             grid: { color: colours.grid },
-            ticks: { color: colours.text },
+            // The axis ends at the sweep's ends; labels stay on round values.
+            ticks: { color: colours.text, includeBounds: false },
           },
           y: {
             type: 'linear',
