@@ -23,6 +23,7 @@ import { outboxRouter } from './routes/outbox/outbox-router.js';
 import { buildsRouter } from './routes/builds/builds-router.js';
 import { shortfallRouter } from './routes/shortfall/shortfall-router.js';
 import { matchesRouter } from './routes/matches/matches-router.js';
+import { touchstoneRouter } from './routes/touchstone/touchstone-router.js';
 import { settingsRouter } from './routes/settings/settings-router.js';
 
 /** Builds the app on an open (models initialised, migrated) `sequelize`. */
@@ -61,6 +62,7 @@ export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Lo
   app.use('/api/builds', buildsRouter(ctx));
   app.use('/api/shortfall', shortfallRouter(ctx));
   app.use('/api/matches', matchesRouter(ctx));
+  app.use('/api/matches', touchstoneRouter(ctx));
   app.use('/api/settings', settingsRouter(ctx));
 
   app.use('/api', (req, _res, next) => next(new HttpError(404, 'not_found', `No API route ${req.method} ${req.originalUrl}.`)));
