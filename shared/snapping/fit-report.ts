@@ -67,6 +67,20 @@ export function ladderOfParts(elements: readonly { position: Position; arrangeme
 }
 
 /**
+ * The ladder of a fit from its candidates' models (every part of a model shares it), for scoring
+ * losses without building part models again; ratings are those of each model's first part, so use
+ * {@link ladderOfParts} where ratings matter (the power check).
+ */
+export function fitModelLadder(problem: SnapProblem, fit: FitCandidate): Ladder {
+  const element = (position: Position, c: KindCandidates, o: SnapOption): ElementModel =>
+    elementModel(position, ARRANGEMENT_NAMES[o.arrangement], o.second < 0 ? [c.models[o.first]] : [c.models[o.first], c.models[o.second]]);
+  const shunt = fit.shunt ? element('shunt', problem.shunt!, fit.shunt) : null;
+  const series = fit.series ? element('series', problem.series!, fit.series) : null;
+  const ordered = problem.placement === 'shunt-at-source' ? [shunt, series] : [series, shunt];
+  return createLadder(ordered.filter((e): e is ElementModel => e !== null));
+}
+
+/**
  * Nominal C or L of an element from its parts' nominal values: series capacitors and parallel
  * inductors `1/(1/a + 1/b)`, parallel capacitors and series inductors `a + b`.
  */

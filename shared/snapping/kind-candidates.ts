@@ -15,7 +15,7 @@
 import { angularFrequency, type PartKind } from '../engine/part-kind.js';
 import { frequencyStatus, partImpedance, type PartModel } from '../engine/part-model.js';
 import { buildImmittanceTree, type ImmittanceTree } from './immittance-tree.js';
-import { snapPartModel, type SnapPart } from './snap-part.js';
+import type { SnapPart } from './snap-part.js';
 import type { MemberTable, StockIndex } from './stock-index.js';
 
 /** What decides which parts are candidates. */
@@ -118,7 +118,7 @@ export function buildKindCandidates(index: StockIndex, kind: PartKind, rules: Ca
     }
     excluded.shortStock += group.end - group.start - eligible;
     if (eligible === 0) continue;
-    const model = snapPartModel(group.model);
+    const model = group.partModel;
     const status = frequencyStatus(model, rules.frequencyHz, rules.usableSrfFraction);
     if (status === 'at-or-above-srf') {
       excluded.atOrAboveSrf += eligible;

@@ -28,9 +28,8 @@ import { lossDb } from '../engine/abcd.js';
 import { bandLoss, type Band, worstCaseLoss } from '../engine/losses.js';
 import type { PortModel } from '../engine/port-model.js';
 import { compareFits, type FitCandidate, lossKeyOfDb } from './fit-collector.js';
-import { fitElementParts, ladderOfParts } from './fit-report.js';
+import { fitModelLadder } from './fit-report.js';
 import { searchNominal } from './nominal-search.js';
-import { ARRANGEMENT_NAMES } from './snap-option.js';
 import type { SnapProblem } from './snap-problem.js';
 
 /** Slack on "objective >= nominal" in the window rule, dB. */
@@ -69,8 +68,7 @@ export interface ObjectiveRanking {
  */
 export function objectiveLossDb(problem: SnapProblem, fit: FitCandidate, context: ObjectiveContext): number {
   if (context.objective === 'nominal') return lossDb(fit.tpg);
-  const elements = fitElementParts(problem, fit);
-  const ladder = ladderOfParts(elements.map((e) => ({ position: e.position, arrangement: ARRANGEMENT_NAMES[e.option.arrangement], parts: e.parts })));
+  const ladder = fitModelLadder(problem, fit);
   if (context.objective === 'worst-case') return worstCaseLoss(ladder, context.source, context.load, context.frequencyHz).lossDb;
   if (!context.band) throw new Error('objectiveLossDb: the band objective needs a band');
   return bandLoss(ladder, context.source, context.load, context.band);

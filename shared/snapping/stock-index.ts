@@ -10,13 +10,16 @@
  * (they decide the "over rating" flag of the part actually chosen, not the rank).
  */
 import type { PartKind } from '../engine/part-kind.js';
-import { type SnapPart, unitCostForRanking } from './snap-part.js';
+import type { PartModel } from '../engine/part-model.js';
+import { type SnapPart, snapPartModel, unitCostForRanking } from './snap-part.js';
 
 /** Parts of one electrical model: members `start .. end - 1` of the kind's {@link MemberTable}. */
 export interface ModelGroup {
   readonly kind: PartKind;
   /** Any member: they share every model field. */
   readonly model: SnapPart;
+  /** The engine model of the group (ratings and part number of {@link model}), built once. */
+  readonly partModel: PartModel;
   readonly start: number;
   readonly end: number;
 }
@@ -55,7 +58,9 @@ function modelKey(p: SnapPart): string {
 }
 
 /**
- * Groups `parts` by electrical model (or, with `merge: false`, one group per part). O(n log n).
+ * Groups `parts` by electrical model (or, with `merge: false`, one group per part) and builds each
+ * group's engine model once (models do not depend on frequency). O(n log n).
+ * @throws EngineInputError naming the part when a stored part is not a valid model
  */
 export function buildStockIndex(parts: readonly SnapPart[], options: { merge?: boolean } = {}): StockIndex {
   const merge = options.merge ?? true;
@@ -90,7 +95,7 @@ export function buildStockIndex(parts: readonly SnapPart[], options: { merge?: b
         keys.push(e.key);
         costs.push(e.cost);
       }
-      groups[kind].push({ kind, model: entries[0].part, start, end: parts.length });
+      groups[kind].push({ kind, model: entries[0].part, partModel: snapPartModel(entries[0].part), start, end: parts.length });
     }
     members[kind] = { parts, keys, costs: Float64Array.from(costs), available: Float64Array.from(parts, (p) => p.available) };
   }
