@@ -64,9 +64,11 @@ export class BoundQueue {
     return top;
   }
 
+  /** Priority key of the item in `slot`. */
   key(slot: number): number {
     return this.keys[slot];
   }
+  /** Bound the item in `slot` was queued with. */
   bound(slot: number): number {
     return this.bounds[slot];
   }

@@ -8,9 +8,11 @@ import type { Complex } from '../engine/complex.js';
 import type { Arrangement } from '../engine/part-kind.js';
 import type { KindCandidates } from './kind-candidates.js';
 
-/** Arrangement codes for hot loops. */
+/** Arrangement code of one part. */
 export const SINGLE = 0;
+/** Arrangement code of two parts in series (impedances add). */
 export const SERIES_PAIR = 1;
+/** Arrangement code of two parts in parallel (admittances add). */
 export const PARALLEL_PAIR = 2;
 /** One of {@link SINGLE}, {@link SERIES_PAIR}, {@link PARALLEL_PAIR}. */
 export type ArrangementCode = 0 | 1 | 2;
