@@ -1,7 +1,8 @@
 /**
  * `npm test`: starts a throw-away PostgreSQL cluster under tmp/ on 127.0.0.1:54339, runs every suite
  * (type check, engine, server, Angular unit tests, app build, browser), stops the cluster whatever happens, and
- * exits non-zero when any suite failed. `npm test -- engine server` runs only the named suites.
+ * exits non-zero when any suite failed. `npm test -- engine server` runs only the named suites;
+ * `npm test -- server stock-import` also passes the other words to vitest as file filters.
  */
 import { spawnSync } from 'node:child_process';
 import { rmSync } from 'node:fs';
@@ -20,13 +21,15 @@ interface Suite {
 }
 
 const bin = (tool: string) => join(ROOT, 'node_modules/.bin', tool);
+/** Words on the command line that are not suite names: vitest file filters. */
+let fileFilters: string[] = [];
 const exec = (cmd: string, args: string[], env: NodeJS.ProcessEnv = {}) =>
   spawnSync(cmd, args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, NG_CLI_ANALYTICS: 'false', ...env } }).status ?? 1;
 
 const SUITES: Suite[] = [
   { name: 'types', run: () => exec(bin('tsc'), ['-p', 'tsconfig.server.json']) },
-  { name: 'engine', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.engine.config.ts']) },
-  { name: 'server', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.server.config.ts']) },
+  { name: 'engine', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.engine.config.ts', ...fileFilters]) },
+  { name: 'server', run: () => exec(bin('vitest'), ['run', '--config', 'test/vitest.server.config.ts', ...fileFilters]) },
   { name: 'app', run: () => exec(bin('ng'), ['test', '--watch=false']) },
   {
     name: 'browser',
@@ -37,16 +40,20 @@ const SUITES: Suite[] = [
         console.error(error instanceof Error ? error.message : error);
         return 1;
       }
-      return exec(bin('vitest'), ['run', '--config', 'test/vitest.browser.config.ts']);
+      return exec(bin('vitest'), ['run', '--config', 'test/vitest.browser.config.ts', ...fileFilters]);
     },
   },
 ];
 
 async function main(): Promise<number> {
-  const wanted = process.argv.slice(2);
-  const unknown = wanted.filter((w) => !SUITES.some((s) => s.name === w));
-  if (unknown.length) {
-    console.error(`Unknown suite(s): ${unknown.join(', ')}. Suites: ${SUITES.map((s) => s.name).join(', ')}.`);
+  const args = process.argv.slice(2);
+  const wanted = args.filter((w) => SUITES.some((s) => s.name === w));
+  fileFilters = args.filter((w) => !wanted.includes(w));
+  if (fileFilters.length && !wanted.some((w) => ['engine', 'server', 'browser'].includes(w))) {
+    console.error(
+      `Unknown suite(s): ${fileFilters.join(', ')}. Suites: ${SUITES.map((s) => s.name).join(', ')}; ` +
+        'other words are file filters and need one of engine, server, browser.',
+    );
     return 2;
   }
   const suites = wanted.length ? SUITES.filter((s) => wanted.includes(s.name)) : SUITES;
