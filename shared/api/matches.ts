@@ -13,10 +13,28 @@ export type ImpedanceInput = string | number | { re: number; im?: number };
 /** A value as a request may give it: a number in SI units or a string such as `"868MHz"`. */
 export type ValueInput = string | number;
 
+/**
+ * A measured one-port Touchstone file (version 1.x or 2.0; S, Y or Z data) as a port of a match
+ * (extension): the match uses its impedance at f0, interpolated; sweeps, band loss and plots use
+ * the measured data across the band.
+ */
+export interface MeasuredPortInput {
+  /** The name the file was uploaded under, shown in messages and on the match. */
+  fileName?: string | null;
+  /** The whole file as text. */
+  text: string;
+}
+
 /** `POST /api/matches/solve` body. */
 export interface SolveRequest {
-  source: ImpedanceInput;
-  load: ImpedanceInput;
+  /** Required unless `sourceTouchstone` is given. */
+  source?: ImpedanceInput;
+  /** Required unless `loadTouchstone` is given. */
+  load?: ImpedanceInput;
+  /** Extension: the source as a measured one-port file, in place of `source`. */
+  sourceTouchstone?: MeasuredPortInput | null;
+  /** Extension: the load as a measured one-port file, in place of `load`. */
+  loadTouchstone?: MeasuredPortInput | null;
   frequencyHz: ValueInput;
   /** Band width centred on f0, Hz. */
   bandwidthHz?: ValueInput | null;

@@ -12,6 +12,8 @@ export interface EngineInputProblem {
   value: unknown;
   /** One sentence that quotes the value and shows an accepted form. */
   message: string;
+  /** 1-based line of an uploaded file the problem is on (a measured Touchstone port). */
+  line?: number;
 }
 
 /** Bad input to an engine function; `details` lists every problem found, `field`/`value` the first. */

@@ -9,7 +9,8 @@ import { idealLadder, type Ladder } from '../engine/ladder.js';
 import { angularFrequency } from '../engine/part-kind.js';
 import { elementImpedance } from '../engine/part-model.js';
 import { linearFrequencies, sweepTpg } from '../engine/sweep.js';
-import { seriesEquivalentPort } from '../engine/port-model.js';
+import type { PortModel } from '../engine/port-model.js';
+import { type MeasuredPort, measuredSpan, measuredTrace } from '../touchstone/measured-port.js';
 import { MIN_FREQUENCY_HZ } from '../engine/port-limits.js';
 import { seriesElement, shuntElement } from '../engine/l-network.js';
 
@@ -27,6 +28,24 @@ export interface MatchSweep {
   frequenciesHz: number[];
   idealTpg: number[];
   fitTpg: number[];
+}
+
+/** A measured port's impedance over the sweep (the Smith chart's measured trace), ohm. */
+export interface MeasuredTrace {
+  port: 'source' | 'load';
+  fileName: string | null;
+  frequenciesHz: number[];
+  impedances: ImpedancePoint[];
+}
+
+/** What a sweep needs of a solve request (shared/engine/solve-request.ts `SolveInput`). */
+export interface SweepPorts {
+  sourcePort: PortModel;
+  loadPort: PortModel;
+  sourceMeasured: MeasuredPort | null;
+  loadMeasured: MeasuredPort | null;
+  frequencyHz: number;
+  bandwidthHz: number | null;
 }
 
 /** An impedance in ohm. */
@@ -55,25 +74,48 @@ export interface SmithPath {
 
 /**
  * Frequencies of a saved match's sweep: {@link SWEEP_POINTS} points over `f0 ± max(bandwidth,
- * 0.2 f0)`, the low end kept above 1 % of f0.
+ * 0.2 f0)`, the low end kept above 1 % of f0, and kept inside the measured range of any measured
+ * port (its data is not extrapolated).
  */
-export function sweepFrequencies(frequencyHz: number, bandwidthHz: number | null): Float64Array {
+export function sweepFrequencies(frequencyHz: number, bandwidthHz: number | null, measured: readonly (MeasuredPort | null)[] = []): Float64Array {
   const half = Math.max(bandwidthHz ?? 0, SWEEP_HALF_SPAN_FRACTION * frequencyHz);
-  const low = Math.max(frequencyHz - half, 0.01 * frequencyHz, MIN_FREQUENCY_HZ);
-  return linearFrequencies(low, frequencyHz + half, SWEEP_POINTS);
+  let low = Math.max(frequencyHz - half, 0.01 * frequencyHz, MIN_FREQUENCY_HZ);
+  let high = frequencyHz + half;
+  const span = measuredSpan(measured);
+  if (span) {
+    low = Math.max(low, span.firstHz);
+    high = Math.min(high, span.lastHz);
+  }
+  // A one-point file (f0 is its point) leaves nothing to sweep but f0.
+  return high > low ? linearFrequencies(low, high, SWEEP_POINTS) : Float64Array.of(frequencyHz);
 }
 
 /**
- * TPG of the ideal network and of the fit over {@link sweepFrequencies}, ports as R with the ideal L
- * or C that gives their reactance at f0 (port-model.ts `series-equivalent`).
+ * TPG of the ideal network and of the fit over {@link sweepFrequencies}: typed ports as R with the
+ * ideal L or C that gives their reactance at f0 (port-model.ts `series-equivalent`), measured ports
+ * from their files.
  */
-export function matchSweep(source: Complex, load: Complex, frequencyHz: number, bandwidthHz: number | null, idealElements: readonly NetworkElement[], fit: Ladder): MatchSweep {
-  const f = sweepFrequencies(frequencyHz, bandwidthHz);
-  const s = seriesEquivalentPort(source, frequencyHz, 'source');
-  const l = seriesEquivalentPort(load, frequencyHz, 'load');
-  const omega = angularFrequency(frequencyHz);
+export function matchSweep(ports: SweepPorts, idealElements: readonly NetworkElement[], fit: Ladder): MatchSweep {
+  const f = sweepFrequencies(ports.frequencyHz, ports.bandwidthHz, [ports.sourceMeasured, ports.loadMeasured]);
+  const omega = angularFrequency(ports.frequencyHz);
   const ideal = idealLadder(idealElements.map((e) => (e.position === 'series' ? seriesElement(e.reactanceOhm, omega) : shuntElement(-1 / e.reactanceOhm, omega))));
-  return { frequenciesHz: Array.from(f), idealTpg: Array.from(sweepTpg(ideal, s, l, f)), fitTpg: Array.from(sweepTpg(fit, s, l, f)) };
+  return {
+    frequenciesHz: Array.from(f),
+    idealTpg: Array.from(sweepTpg(ideal, ports.sourcePort, ports.loadPort, f)),
+    fitTpg: Array.from(sweepTpg(fit, ports.sourcePort, ports.loadPort, f)),
+  };
+}
+
+/** The measured ports' impedances over the sweep's range, for the Smith chart (empty when none is measured). */
+export function measuredTraces(ports: SweepPorts): MeasuredTrace[] {
+  const f = sweepFrequencies(ports.frequencyHz, ports.bandwidthHz, [ports.sourceMeasured, ports.loadMeasured]);
+  const traces: MeasuredTrace[] = [];
+  for (const [port, measured] of [['source', ports.sourceMeasured], ['load', ports.loadMeasured]] as const) {
+    if (!measured) continue;
+    const trace = measuredTrace(measured, f[0], f[f.length - 1]);
+    traces.push({ port, fileName: measured.fileName, frequenciesHz: trace.frequenciesHz, impedances: trace.impedances.map((z) => ({ re: z.re, im: z.im })) });
+  }
+  return traces;
 }
 
 /**

@@ -5,7 +5,7 @@
  * `chosen`, `fit`, `sweep.frequenciesHz/idealTpg/fitTpg`, `createdAt`, `createdBy`).
  */
 import type { MatchNetwork, NetworkPlacement, Objective, SolveRequest } from '../api/matches.js';
-import type { SmithPath, MatchSweep } from './match-sweep.js';
+import type { MatchSweep, MeasuredTrace, SmithPath } from './match-sweep.js';
 import type { SnappedFit } from './snapped-fit.js';
 import type { SnapPart } from './snap-part.js';
 
@@ -66,7 +66,8 @@ export interface SavedMatchDetail extends SavedMatchSummary {
   parts: SnapPart[];
   /** TPG of the ideal network and the fit over frequency. */
   sweep: MatchSweep;
-  smith: { ideal: SmithPath; fit: SmithPath };
+  /** Smith paths at f0; `measured` holds each measured port's impedance over the sweep (empty for typed ports). */
+  smith: { ideal: SmithPath; fit: SmithPath; measured: MeasuredTrace[] };
   /** What changed in the stock since (empty when nothing did); the saved numbers stay as saved. */
   stockChanges: StockChange[];
 }

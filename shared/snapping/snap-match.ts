@@ -7,7 +7,6 @@ import type { Objective, SolveResponse } from '../api/matches.js';
 import { solveLNetworks } from '../engine/l-network.js';
 import { bandAround } from '../engine/losses.js';
 import { DEFAULT_USABLE_SRF_FRACTION } from '../engine/part-model.js';
-import { seriesEquivalentPort } from '../engine/port-model.js';
 import { solveIdeal } from '../engine/solve-ideal.js';
 import type { SolveInput } from '../engine/solve-request.js';
 import { buildKindCandidates, type KindCandidates } from './kind-candidates.js';
@@ -105,8 +104,9 @@ export function snapMatch(input: SolveInput, index: StockIndex, settings: SnapSe
     capacitor: buildKindCandidates(index, 'capacitor', rules),
     inductor: buildKindCandidates(index, 'inductor', rules),
   };
-  const source = seriesEquivalentPort(input.source, input.frequencyHz, 'source');
-  const load = seriesEquivalentPort(input.load, input.frequencyHz, 'load');
+  // Typed ports are R with the L or C of their X at f0; measured ones follow their file (solve-request.ts).
+  const source = input.sourcePort;
+  const load = input.loadPort;
   const band = input.bandwidthHz === null ? null : bandAround(input.frequencyHz, input.bandwidthHz);
   const context: ReportContext = {
     source,

@@ -21,6 +21,11 @@ describe('parseSolveRequest', () => {
     expect(input).toEqual({
       source: { re: 50, im: 0 },
       load: { re: 12, im: -35 },
+      // Typed ports: R with the ideal L or C of their X at f0 (port-model.ts).
+      sourcePort: { model: 'series-equivalent', resistanceOhm: 50, reactanceOhm: 0, frequencyHz: 868e6 },
+      loadPort: { model: 'series-equivalent', resistanceOhm: 12, reactanceOhm: -35, frequencyHz: 868e6 },
+      sourceMeasured: null,
+      loadMeasured: null,
       frequencyHz: 868e6,
       bandwidthHz: 10e6,
       powerW: 0.1,

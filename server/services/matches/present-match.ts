@@ -6,7 +6,7 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { parseSolveRequest } from '../../../shared/engine/solve-request.js';
 import { ladderOfParts } from '../../../shared/snapping/fit-report.js';
-import { matchSweep, smithPath } from '../../../shared/snapping/match-sweep.js';
+import { matchSweep, measuredTraces, smithPath } from '../../../shared/snapping/match-sweep.js';
 import type { SavedMatchDetail, SavedMatchSummary, StockChange } from '../../../shared/snapping/saved-match.js';
 import type { SnapPart } from '../../../shared/snapping/snap-part.js';
 import type { SnappedFit } from '../../../shared/snapping/snapped-fit.js';
@@ -81,8 +81,12 @@ export async function presentMatchDetail(sequelize: Sequelize, match: Match, use
     fit: match.fit,
     settings: match.settings,
     parts: match.parts,
-    sweep: matchSweep(input.source, input.load, input.frequencyHz, input.bandwidthHz, match.network.elements, fitLadder),
-    smith: { ideal: smithPath(input.source, input.load, input.frequencyHz, ideal), fit: smithPath(input.source, input.load, input.frequencyHz, fitLadder) },
+    sweep: matchSweep(input, match.network.elements, fitLadder),
+    smith: {
+      ideal: smithPath(input.source, input.load, input.frequencyHz, ideal),
+      fit: smithPath(input.source, input.load, input.frequencyHz, fitLadder),
+      measured: measuredTraces(input),
+    },
     stockChanges: await stockChangesOf(sequelize, match, transaction),
   };
 }

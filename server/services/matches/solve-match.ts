@@ -3,7 +3,7 @@
  * the snapper fill the fits (shared/snapping/snap-match.ts). Saves nothing.
  */
 import type { Sequelize, Transaction } from 'sequelize';
-import { isEngineInputError } from '../../../shared/engine/engine-input-error.js';
+import { type EngineInputProblem, isEngineInputError } from '../../../shared/engine/engine-input-error.js';
 import { parseSolveRequest, type SolveInput } from '../../../shared/engine/solve-request.js';
 import { snapMatch, type SnappedSolveResponse, type SnapSettings } from '../../../shared/snapping/snap-match.js';
 import type { SnapPart } from '../../../shared/snapping/snap-part.js';
@@ -19,6 +19,11 @@ export interface SolvedMatch {
   parts: SnapPart[];
 }
 
+/** One problem as a 400's detail; `line` when it is inside an uploaded file. */
+function detailOf(d: EngineInputProblem): { field: string; value: unknown; message: string; line?: number } {
+  return d.line === undefined ? { field: d.field, value: d.value, message: d.message } : { field: d.field, value: d.value, message: d.message, line: d.line };
+}
+
 /**
  * The request checked into SI numbers.
  * @throws 400 `invalid_input` whose details name each bad field (engine solve-request.ts)
@@ -30,7 +35,7 @@ export function readSolveRequest(body: unknown, what = 'solve request'): SolveIn
     if (!isEngineInputError(error)) throw error;
     throw badRequest(
       `The ${what} is not valid: ${error.message}`,
-      error.details.map((d) => ({ field: d.field, value: d.value, message: d.message })),
+      error.details.map(detailOf),
     );
   }
 }
@@ -51,7 +56,7 @@ export async function solveMatch(sequelize: Sequelize, body: unknown, transactio
   try {
     response = snapMatch(input, index, settings, { objectiveGiven, location: input.location });
   } catch (error) {
-    if (isEngineInputError(error)) throw badRequest(`The solve request is not valid: ${error.message}`, error.details.map((d) => ({ field: d.field, value: d.value, message: d.message })));
+    if (isEngineInputError(error)) throw badRequest(`The solve request is not valid: ${error.message}`, error.details.map(detailOf));
     throw error;
   }
   if (input.location && parts.length === 0) {
