@@ -87,4 +87,20 @@ describe('ImportHistory', () => {
       ['Set to 0', '30 → 0 (-30)', '—'],
     ]);
   });
+
+  it('opens an import from the keyboard through the file-name button, which says whether it is open', async () => {
+    const open = fixture.nativeElement.querySelector('[data-testid="stock-history-open-12"]') as HTMLButtonElement;
+    expect(open.tagName).toBe('BUTTON');
+    expect(open.textContent?.trim()).toBe('week-48.csv');
+    expect(open.getAttribute('aria-pressed')).toBe('false');
+    // The row stays a table row: a role on it would break the table for screen readers.
+    expect(fixture.nativeElement.querySelector('[data-testid="stock-history-row-12"]').getAttribute('role')).not.toBe('button');
+    open.focus();
+    open.click();
+    await fixture.whenStable();
+    backend.expectOne((req) => req.url === '/api/stock/imports/12').flush(DETAIL);
+    await fixture.whenStable();
+    expect(open.getAttribute('aria-pressed')).toBe('true');
+    expect(fixture.nativeElement.querySelector('[data-testid="stock-history-detail"]')).not.toBeNull();
+  });
 });
