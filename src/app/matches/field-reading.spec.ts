@@ -1,8 +1,16 @@
-import { type MatchFormValue, controlOfRequestField, readForm, readImpedance, readQuantity, requestProblems, solveRequestOf } from './field-reading.js';
+import { type MatchFormValue, controlOfRequestField, readForm, readImpedance, readMeasuredFile, readQuantity, requestProblems, solveRequestOf } from './field-reading.js';
+
+/** A two-point measured load, Z data in ohm (Touchstone 2.0 keywords): 10 - j40 at 860 MHz, 14 - j30 at 880 MHz. */
+const MEASURED = {
+  fileName: 'ant.s1p',
+  text: ['[Version] 2.0', '# MHz Z RI R 50', '[Number of Ports] 1', '[Number of Frequencies] 2', '[Network Data]', '860 10 -40', '880 14 -30', '[End]'].join('\n'),
+};
 
 const FILLED: MatchFormValue = {
   source: '50',
   load: '12-j35',
+  sourceFile: null,
+  loadFile: null,
   frequency: '868MHz',
   band: '',
   power: '',
@@ -93,5 +101,27 @@ describe('controlOfRequestField', () => {
     expect(controlOfRequestField('load.re')).toBe('load');
     expect(controlOfRequestField('fitsPerNetwork')).toBeNull();
     expect(controlOfRequestField(undefined)).toBeNull();
+  });
+});
+
+describe('a measured load file', () => {
+  it('reads as its points and range, and the impedance at f0 interpolated (hand: t = 0.4, 11.6 - j36)', () => {
+    expect(readMeasuredFile(MEASURED, 'loadTouchstone', '868MHz')).toEqual({ kind: 'value', shown: '2 points, 860 MHz to 880 MHz; 11.6 - j36 Ω at 868 MHz' });
+    expect(readMeasuredFile(MEASURED, 'loadTouchstone', '')).toEqual({ kind: 'value', shown: '2 points, 860 MHz to 880 MHz' });
+  });
+
+  it('says which line of the file is wrong', () => {
+    const reading = readMeasuredFile({ fileName: 'bad.s1p', text: MEASURED.text.replace('880 14', '850 14') }, 'loadTouchstone', '868MHz');
+    expect(reading.kind).toBe('problem');
+    expect(reading.kind === 'problem' && reading.message).toMatch(/"bad\.s1p" line 7/);
+  });
+
+  it('goes in the request in place of the typed load, and its problems show under the load and the frequency', () => {
+    const value = { ...FILLED, load: 'ignored', loadFile: MEASURED };
+    const request = solveRequestOf(value);
+    expect(request.load).toBeUndefined();
+    expect(request.loadTouchstone).toEqual(MEASURED);
+    expect(controlOfRequestField('loadTouchstone.text')).toBe('load');
+    expect(requestProblems({ ...value, frequency: '915MHz' }).frequency).toMatch(/outside the measured data \(860 MHz to 880 MHz\)/);
   });
 });

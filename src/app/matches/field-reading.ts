@@ -3,7 +3,7 @@
  * (shared/engine/value-parse.ts) and checks (shared/engine/solve-request.ts), so the browser and the
  * server agree on what is accepted and say it with the same words.
  */
-import type { Objective, SolveRequest } from '../../../shared/api/matches.js';
+import type { MeasuredPortInput, Objective, SolveRequest } from '../../../shared/api/matches.js';
 import {
   formatImpedance,
   formatValue,
@@ -12,11 +12,16 @@ import {
   parseSolveRequest,
   parseValue,
 } from '../../../shared/engine/index.js';
+import { measuredImpedanceAt, readMeasuredPort } from '../../../shared/touchstone/measured-port.js';
 
 /** The form's fields, as the designer sees them. */
 export interface MatchFormValue {
   source: string;
   load: string;
+  /** A measured source file, used in place of the typed source. */
+  sourceFile: MeasuredPortInput | null;
+  /** A measured load file, used in place of the typed load. */
+  loadFile: MeasuredPortInput | null;
   frequency: string;
   band: string;
   power: string;
@@ -36,6 +41,9 @@ export type FieldReading = { kind: 'value'; shown: string } | { kind: 'problem';
 const CONTROL_OF_REQUEST_FIELD: Readonly<Record<string, MatchFormField>> = {
   source: 'source',
   load: 'load',
+  // A measured file's problems show under the port it stands for.
+  sourceTouchstone: 'source',
+  loadTouchstone: 'load',
   frequencyHz: 'frequency',
   bandwidthHz: 'band',
   powerW: 'power',
@@ -62,8 +70,8 @@ export function withoutFieldPrefix(message: string): string {
  */
 export function solveRequestOf(value: MatchFormValue): SolveRequest {
   const request: SolveRequest = {
-    source: value.source.trim(),
-    load: value.load.trim(),
+    ...(value.sourceFile ? { sourceTouchstone: value.sourceFile } : { source: value.source.trim() }),
+    ...(value.loadFile ? { loadTouchstone: value.loadFile } : { load: value.load.trim() }),
     frequencyHz: value.frequency.trim(),
     buildQuantity: value.quantity ?? Number.NaN,
     combinations: value.combinations,
@@ -109,6 +117,30 @@ export function readImpedance(text: string, field: string): FieldReading {
   }
 }
 
+/**
+ * Reads a measured port file: `181 points, 780 MHz to 960 MHz; 7.66 - j31.4 Ω at 868 MHz` (the
+ * impedance at f0 only when the frequency reads and lies inside the file).
+ */
+export function readMeasuredFile(file: MeasuredPortInput, field: 'sourceTouchstone' | 'loadTouchstone', frequencyText: string): FieldReading {
+  try {
+    const measured = readMeasuredPort(file, field);
+    const points = measured.data.frequencyHz.length;
+    const range = `${points} point${points === 1 ? '' : 's'}, ${formatValue(measured.firstHz, 'frequency')} to ${formatValue(measured.lastHz, 'frequency')}`;
+    let atF0 = '';
+    try {
+      const f0 = parseValue(frequencyText, 'frequency', { field: 'frequencyHz' });
+      const z = measuredImpedanceAt(measured, f0, field);
+      atF0 = `; ${formatImpedance(z.re, z.im)} at ${formatValue(f0, 'frequency')}`;
+    } catch (error: unknown) {
+      if (!isEngineInputError(error)) throw error;
+    }
+    return { kind: 'value', shown: range + atF0 };
+  } catch (error: unknown) {
+    if (isEngineInputError(error)) return { kind: 'problem', message: withoutFieldPrefix(error.message) };
+    throw error;
+  }
+}
+
 /** Reads a frequency or power field: `868MHz` shows as `868 MHz`. */
 export function readQuantity(text: string, quantity: 'frequency' | 'power', field: string): FieldReading {
   if (text.trim() === '') return { kind: 'empty' };
@@ -127,8 +159,8 @@ export function readQuantity(text: string, quantity: 'frequency' | 'power', fiel
 export function readForm(value: MatchFormValue): Partial<Record<MatchFormField, FieldReading>> {
   const problems = requestProblems(value);
   const readings: Partial<Record<MatchFormField, FieldReading>> = {
-    source: readImpedance(value.source, 'source'),
-    load: readImpedance(value.load, 'load'),
+    source: value.sourceFile ? readMeasuredFile(value.sourceFile, 'sourceTouchstone', value.frequency) : readImpedance(value.source, 'source'),
+    load: value.loadFile ? readMeasuredFile(value.loadFile, 'loadTouchstone', value.frequency) : readImpedance(value.load, 'load'),
     frequency: readQuantity(value.frequency, 'frequency', 'frequencyHz'),
     band: readQuantity(value.band, 'frequency', 'bandwidthHz'),
     power: readQuantity(value.power, 'power', 'powerW'),

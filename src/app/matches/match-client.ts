@@ -1,6 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { type Observable, map } from 'rxjs';
+import { type Observable, firstValueFrom, map } from 'rxjs';
 
 import type { SolveRequest, SolveResponse } from '../../../shared/api/matches.js';
 import type { ChosenFit, SaveMatchRequest, SavedMatch, SavedMatchSummary } from './saved-match.js';
@@ -33,6 +33,18 @@ export class MatchClient {
         throw new Error('MatchClient: GET /api/matches answered neither a list nor {items: [...]}.');
       }),
     );
+  }
+
+  /**
+   * A saved match's network as a Touchstone 2-port file (`GET /api/matches/:id/touchstone`): the
+   * fitted network with full part models, or the ideal one; with the file name the server gives.
+   */
+  async touchstone(id: number, network: 'fit' | 'ideal'): Promise<{ blob: Blob; fileName: string }> {
+    const response = await firstValueFrom(
+      this.http.get(`/api/matches/${encodeURIComponent(id)}/touchstone`, { params: { network }, responseType: 'blob', observe: 'response' }),
+    );
+    const named = /filename="([^"]+)"/.exec(response.headers.get('Content-Disposition') ?? '');
+    return { blob: response.body ?? new Blob([]), fileName: named?.[1] ?? `match-${id}-${network}.s2p` };
   }
 
   /** One saved match with its inputs, chosen fit, results and sweep (`GET /api/matches/:id`). */

@@ -109,4 +109,29 @@ describe('MatchForm', () => {
     expect(await (await field('match-quantity')).getValue()).toBe('40');
     await vi.waitFor(() => expect(text('match-frequency-reading')).toBe('Reads as 868 MHz'));
   });
+
+  it('takes a measured load file in place of the typed load, and goes back to typing', async () => {
+    const fileText = ['[Version] 2.0', '# MHz Z RI R 50', '[Number of Ports] 1', '[Number of Frequencies] 2', '[Network Data]', '860 10 -40', '880 14 -30', '[End]'].join('\n');
+    const picker = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>('[data-testid="match-load-file-input"]')!;
+    Object.defineProperty(picker, 'files', { configurable: true, value: [new File([fileText], 'ant.s1p', { type: 'text/plain' })] });
+    picker.dispatchEvent(new Event('change'));
+    await vi.waitFor(() => expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="match-load-file-name"]')).not.toBeNull());
+    expect(await (await field('match-load-file-name')).getValue()).toBe('ant.s1p');
+    await (await field('match-frequency')).setValue('868MHz');
+    // Hand: 868 MHz is 0.4 of the way from 860 to 880 MHz: 11.6 - j36 ohm.
+    await vi.waitFor(() => expect(text('match-load-reading')).toBe('2 points, 860 MHz to 880 MHz; 11.6 - j36 Ω at 868 MHz'));
+    await solve();
+    expect(emitted).toHaveLength(1);
+    expect(emitted[0].load).toBeUndefined();
+    expect(emitted[0].loadTouchstone).toEqual({ fileName: 'ant.s1p', text: fileText });
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="match-load-file-clear"]' }))).click();
+    await vi.waitFor(() => expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="match-load"]')).not.toBeNull());
+  });
+
+  it('names the line of a malformed measured file under the load', async () => {
+    const picker = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>('[data-testid="match-load-file-input"]')!;
+    Object.defineProperty(picker, 'files', { configurable: true, value: [new File(['# MHz S RI R 50\n868 0.1\n'], 'short.s1p')] });
+    picker.dispatchEvent(new Event('change'));
+    await vi.waitFor(() => expect(text('match-load-problem')).toMatch(/"short\.s1p" line 2/));
+  });
 });

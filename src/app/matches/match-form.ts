@@ -9,7 +9,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { debounceTime, map, startWith } from 'rxjs';
 
-import type { Objective, SolveRequest } from '../../../shared/api/matches.js';
+import type { MeasuredPortInput, Objective, SolveRequest } from '../../../shared/api/matches.js';
+import { MAX_MEASURED_TEXT_CHARS } from '../../../shared/touchstone/measured-port.js';
 import { type FieldReading, type MatchFormField, type MatchFormValue, readForm, solveRequestOf } from './field-reading.js';
 
 /** How long typing must pause before a field's reading updates, in milliseconds. */
@@ -21,6 +22,12 @@ export const OBJECTIVE_CHOICES: readonly { value: Objective; label: string; hint
   { value: 'nominal', label: 'Nominal at f0', hint: 'Ranks fits by loss at f0 with nominal values' },
   { value: 'band', label: 'Across the band', hint: 'Ranks fits by the largest loss across the band' },
 ];
+
+/** A port of the match: the form takes each as typed text or as a measured file. */
+export type MatchPort = 'source' | 'load';
+
+/** What the file picker offers: Touchstone one-port files (version 1 `.s1p`, version 2 `.ts`). */
+export const MEASURED_FILE_ACCEPT = '.s1p,.S1P,.ts,.txt';
 
 /** What a request field of a saved match holds, as form text. */
 function textOf(value: unknown): string {
@@ -63,9 +70,18 @@ export class MatchForm {
   readonly solve = output<SolveRequest>();
 
   protected readonly objectives = OBJECTIVE_CHOICES;
+  protected readonly measuredFileAccept = MEASURED_FILE_ACCEPT;
+  /** The two port fields, source first. */
+  protected readonly ports: readonly { name: MatchPort; label: string; placeholder: string; hint: string }[] = [
+    { name: 'source', label: 'Source', placeholder: '50', hint: 'e.g. 50 or 25+j10, or a measured file' },
+    { name: 'load', label: 'Load', placeholder: '12-j35', hint: 'e.g. 12-j35, or a measured file' },
+  ];
+
   protected readonly form = inject(FormBuilder).nonNullable.group({
     source: '50',
     load: '',
+    sourceFile: null as MeasuredPortInput | null,
+    loadFile: null as MeasuredPortInput | null,
     frequency: '',
     band: '',
     power: '',
@@ -75,6 +91,13 @@ export class MatchForm {
     location: '',
   });
 
+  /** Why a chosen file could not be read at all (too big, not text), by port. */
+  private readonly fileReadProblems = signal<Partial<Record<MatchPort, string>>>({});
+  /** The measured file of each port, or null while the port is typed. */
+  private readonly files = toSignal(
+    this.form.valueChanges.pipe(map(() => ({ source: this.form.controls.sourceFile.value, load: this.form.controls.loadFile.value }))),
+    { initialValue: { source: null, load: null } as Record<MatchPort, MeasuredPortInput | null> },
+  );
   private readonly objective = toSignal(this.form.controls.objective.valueChanges, { initialValue: this.form.controls.objective.value });
   /** What the chosen objective ranks by. */
   protected readonly objectiveHint = computed(() => OBJECTIVE_CHOICES.find((choice) => choice.value === this.objective())?.hint ?? '');
@@ -105,9 +128,11 @@ export class MatchForm {
     const server = this.serverProblems();
     const edited = this.editedSinceServer();
     const shown: Partial<Record<MatchFormField, FieldReading>> = {};
+    const unreadable = this.fileReadProblems();
     for (const field of Object.keys(this.form.controls) as MatchFormField[]) {
       const reading = readings[field];
-      if (server[field] && !edited.has(field)) shown[field] = { kind: 'problem', message: server[field] };
+      if ((field === 'source' || field === 'load') && unreadable[field]) shown[field] = { kind: 'problem', message: unreadable[field] };
+      else if (server[field] && !edited.has(field)) shown[field] = { kind: 'problem', message: server[field] };
       else if (reading?.kind === 'problem' && !(this.attempted() || this.dirtyFields().has(field))) shown[field] = { kind: 'empty' };
       else if (reading) shown[field] = reading;
     }
@@ -116,15 +141,50 @@ export class MatchForm {
 
   constructor() {
     for (const [name, control] of Object.entries(this.form.controls) as [string, AbstractControl][]) {
+      // A file stands for its port: choosing one counts as editing the port.
+      const field = name === 'sourceFile' ? 'source' : name === 'loadFile' ? 'load' : name;
       control.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
-        this.dirtyFields.update((fields) => new Set(fields).add(name));
-        this.editedSinceServer.update((fields) => new Set(fields).add(name));
+        this.dirtyFields.update((fields) => new Set(fields).add(field));
+        this.editedSinceServer.update((fields) => new Set(fields).add(field));
       });
     }
     effect(() => {
       const preset = this.preset();
       if (preset) this.fill(preset);
     });
+  }
+
+  /** The measured file of a port, or null. */
+  protected file(port: MatchPort): MeasuredPortInput | null {
+    return this.files()[port];
+  }
+
+  /** Reads the file chosen in a port's picker and uses it for that port. */
+  protected async pickFile(port: MatchPort, event: Event): Promise<void> {
+    const picker = event.target as HTMLInputElement;
+    const chosen = picker.files?.[0];
+    picker.value = '';
+    if (!chosen) return;
+    const control = port === 'source' ? this.form.controls.sourceFile : this.form.controls.loadFile;
+    if (chosen.size > MAX_MEASURED_TEXT_CHARS) {
+      this.fileReadProblems.update((p) => ({ ...p, [port]: `“${chosen.name}” is ${Math.round(chosen.size / 1000)} kB; measured files up to ${MAX_MEASURED_TEXT_CHARS / 1_000_000} MB are accepted.` }));
+      control.setValue(null);
+      return;
+    }
+    try {
+      const text = await chosen.text();
+      this.fileReadProblems.update((p) => ({ ...p, [port]: undefined }));
+      control.setValue({ fileName: chosen.name, text });
+    } catch {
+      this.fileReadProblems.update((p) => ({ ...p, [port]: `“${chosen.name}” could not be read as text.` }));
+      control.setValue(null);
+    }
+  }
+
+  /** Goes back to a typed impedance for a port. */
+  protected clearFile(port: MatchPort): void {
+    this.fileReadProblems.update((p) => ({ ...p, [port]: undefined }));
+    (port === 'source' ? this.form.controls.sourceFile : this.form.controls.loadFile).setValue(null);
   }
 
   /** The problem shown under a field, or null. */
@@ -152,6 +212,8 @@ export class MatchForm {
     this.form.setValue({
       source: textOf(request.source),
       load: textOf(request.load),
+      sourceFile: request.sourceTouchstone ?? null,
+      loadFile: request.loadTouchstone ?? null,
       frequency: textOf(request.frequencyHz),
       band: textOf(request.bandwidthHz),
       power: textOf(request.powerW),

@@ -9,7 +9,9 @@ import { answerOf, latestAnswer } from './request-state.js';
 import type { MatchSweep } from './saved-match.js';
 import { SmithChart } from './smith-chart.js';
 import { type SmithElement, reactanceAt } from './smith-path.js';
-import { type TpgCurve, curveFromTpg, fitTpgCurve, idealTpgCurve } from './tpg-sweep.js';
+import { type TpgCurve, curveFromTpg, fitTpgCurve, idealTpgCurve, sweepRange } from './tpg-sweep.js';
+import { measuredTrace } from '../../../shared/touchstone/measured-port.js';
+import type { MeasuredTraceView } from './smith-chart.js';
 import { TpgPlot } from './tpg-plot.js';
 
 /**
@@ -36,6 +38,7 @@ import { TpgPlot } from './tpg-plot.js';
         [load]="solveInput().load"
         [idealElements]="idealElements()"
         [fitElements]="fitElements()"
+        [measured]="measuredTraces()"
       />
     </div>
   `,
@@ -72,16 +75,15 @@ export class MatchViews {
   protected readonly idealCurve = computed<TpgCurve>(() => {
     const saved = this.savedSweep();
     if (saved?.idealTpg) return curveFromTpg(saved.frequenciesHz, saved.idealTpg);
-    const { source, load, frequencyHz, bandwidthHz } = this.solveInput();
-    return idealTpgCurve(this.network().elements, source, load, frequencyHz, bandwidthHz);
+    return idealTpgCurve(this.network().elements, this.solveInput());
   });
 
   /** The fit's curve swept from its stocked parts, when there is no saved sweep. */
   private readonly sweptFit = latestAnswer(
     computed(() => (this.savedSweep()?.fitTpg ? undefined : (this.fit() ?? undefined))),
     (fit) => {
-      const { source, load, frequencyHz, bandwidthHz } = this.solveInput();
-      return this.fitParts.partsOf(fit).pipe(map((parts) => fitTpgCurve(fit, parts, source, load, frequencyHz, bandwidthHz)));
+      const ports = this.solveInput();
+      return this.fitParts.partsOf(fit).pipe(map((parts) => fitTpgCurve(fit, parts, ports)));
     },
   );
 
@@ -95,6 +97,19 @@ export class MatchViews {
     if (!this.fit()) return 'Choose a fit to compare it with the ideal network.';
     if (this.sweptFit().status === 'failed') return 'The fit’s curve cannot be drawn: one of its parts is no longer in the stock list.';
     return 'Sweeping the fit with its parts’ models…';
+  });
+
+  /** Each measured port's impedance over the plotted range, for the Smith chart. */
+  protected readonly measuredTraces = computed<MeasuredTraceView[]>(() => {
+    const input = this.solveInput();
+    const { startHz, stopHz } = sweepRange(input.frequencyHz, input.bandwidthHz, [input.sourceMeasured, input.loadMeasured]);
+    const traces: MeasuredTraceView[] = [];
+    for (const [port, measured] of [['load', input.loadMeasured], ['source', input.sourceMeasured]] as const) {
+      if (!measured) continue;
+      const trace = measuredTrace(measured, startHz, stopHz);
+      traces.push({ port, fileName: measured.fileName, impedances: trace.impedances, startHz: trace.frequenciesHz[0], stopHz: trace.frequenciesHz.at(-1)! });
+    }
+    return traces;
   });
 
   protected readonly idealElements = computed<SmithElement[]>(() =>

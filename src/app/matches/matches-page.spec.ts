@@ -241,6 +241,7 @@ describe('MatchesPage', () => {
       smith: {
         ideal: { referenceOhm: 50, load: { re: 12, im: -35 }, target: { re: 50, im: 0 }, nodes: [], steps: [] },
         fit: { referenceOhm: 50, load: { re: 12, im: -35 }, target: { re: 50, im: 0 }, nodes: [], steps: [] },
+        measured: [],
       },
       stockChanges: [{ partId: 2, partNumber: 'TW-L0402-10N', change: 'short' }],
     };

@@ -24,6 +24,7 @@ import { answerOf, failureOf, latestAnswer } from './request-state.js';
 import type { ChosenFit, SavedMatch, SavedMatchSummary } from './saved-match.js';
 import { savedMatchView } from './saved-match-view.js';
 import { SavedMatchList } from './saved-match-list.js';
+import { saveBlob } from '../builds/build-client.js';
 
 /** How long a confirmation stays, in milliseconds. */
 const NOTICE_MS = 5000;
@@ -221,6 +222,29 @@ export class MatchesPage {
     const at = new Date(detail.createdAt);
     const date = Number.isNaN(at.getTime()) ? '' : ` on ${at.toLocaleDateString(undefined, { day: 'numeric', month: 'short', year: 'numeric' })}`;
     return `${date}${detail.createdBy ? ` by ${detail.createdBy.name}` : ''}`;
+  }
+
+  /** Which Touchstone download is on its way, or null. */
+  protected readonly downloading = signal<'fit' | 'ideal' | null>(null);
+  /** Why the last download failed, or null. */
+  protected readonly downloadFailure = signal<string | null>(null);
+
+  /** Downloads the reopened match's fitted or ideal network as a Touchstone 2-port file. */
+  protected async downloadTouchstone(network: 'fit' | 'ideal'): Promise<void> {
+    const id = this.openId();
+    if (id === null || this.downloading()) return;
+    this.downloading.set(network);
+    this.downloadFailure.set(null);
+    try {
+      const { blob, fileName } = await this.client.touchstone(id, network);
+      saveBlob(blob, fileName);
+    } catch (error: unknown) {
+      this.downloadFailure.set(
+        isAnnouncedByInterceptor(error) ? 'The file was not downloaded.' : apiErrorMessage(error, 'The Touchstone file could not be made, and the server did not say why.'),
+      );
+    } finally {
+      this.downloading.set(null);
+    }
   }
 
   protected openId(): number | null {

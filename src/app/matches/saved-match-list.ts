@@ -59,8 +59,11 @@ export class SavedMatchList {
     const request = match.request;
     if (request) {
       try {
-        const load = parseComplex(request.load, 'load');
-        parts.push(`load ${formatImpedance(load.re, load.im, 3)}`);
+        if (request.loadTouchstone) parts.push(`measured load ${request.loadTouchstone.fileName ?? 'file'}`);
+        else {
+          const load = parseComplex(request.load, 'load');
+          parts.push(`load ${formatImpedance(load.re, load.im, 3)}`);
+        }
         parts.push(formatValue(parseValue(request.frequencyHz, 'frequency'), 'frequency'));
       } catch (error: unknown) {
         if (!isEngineInputError(error)) throw error;

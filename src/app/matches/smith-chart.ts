@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 
-import { type Complex, formatImpedance } from '../../../shared/engine/index.js';
+import { type Complex, formatImpedance, formatValue } from '../../../shared/engine/index.js';
 import {
   type SmithElement,
   type SmithPath,
@@ -11,6 +11,16 @@ import {
   resistanceCircle,
   smithPath,
 } from './smith-path.js';
+
+/** A measured port over the plotted band, as the chart draws it. */
+export interface MeasuredTraceView {
+  port: 'source' | 'load';
+  fileName: string | null;
+  /** Measured impedances, ohm, ascending in frequency. */
+  impedances: readonly Complex[];
+  startHz: number;
+  stopHz: number;
+}
 
 /** The reference the chart is normalised to. */
 export type SmithReference = 'fifty-ohm' | 'source';
@@ -26,6 +36,11 @@ let nextChartId = 0;
 /** A polyline ready for `points="..."`. */
 function pointsOf(reflections: readonly Complex[]): string {
   return reflections.map((g) => `${g.re.toFixed(4)},${(-g.im).toFixed(4)}`).join(' ');
+}
+
+/** The chart position of a reflection coefficient. */
+function placeOfReflection(g: Complex | undefined): { x: number; y: number } | null {
+  return g ? { x: g.re, y: -g.im } : null;
 }
 
 /** The chart position of a normalised impedance (SVG y grows downward, so Gamma's im is negated). */
@@ -55,6 +70,11 @@ export class SmithChart {
   readonly idealElements = input.required<readonly SmithElement[]>();
   /** The chosen fit's elements at f0, source to load, or null when no fit is chosen. */
   readonly fitElements = input<readonly SmithElement[] | null>(null);
+  /**
+   * Measured ports over the band: a measured load is drawn as measured, a measured source as its
+   * conjugate (the target the network must reach at each frequency).
+   */
+  readonly measured = input<readonly MeasuredTraceView[]>([]);
 
   /** Id of this chart's unit-disc clip path. */
   protected readonly clipId = `sm-smith-clip-${nextChartId++}`;
@@ -79,6 +99,17 @@ export class SmithChart {
   protected readonly idealPolylines = computed(() => this.idealPath().arcs.map((arc) => pointsOf(arc.reflections)));
   protected readonly fitPolylines = computed(() => this.fitPath()?.arcs.map((arc) => pointsOf(arc.reflections)) ?? []);
 
+  /** Measured traces as polylines, with their legend words. */
+  protected readonly measuredLines = computed(() =>
+    this.measured().map((trace) => {
+      const z0 = this.referenceOhm();
+      const shown = trace.impedances.map((z) => reflectionOf({ re: z.re / z0, im: (trace.port === 'source' ? -z.im : z.im) / z0 }));
+      const band = `${formatValue(trace.startHz, 'frequency', { significantDigits: 4 })} to ${formatValue(trace.stopHz, 'frequency', { significantDigits: 4 })}`;
+      const what = trace.port === 'load' ? 'Measured load' : 'Target conj(Zs), measured source';
+      return { port: trace.port, points: pointsOf(shown), legend: `${what}${trace.fileName ? ` (${trace.fileName})` : ''}, ${band}`, start: placeOfReflection(shown[0]) };
+    }),
+  );
+
   protected readonly loadPlace = computed(() => placeOf(this.idealPath().load));
   protected readonly targetPlace = computed(() => placeOf(matchTarget(this.source(), this.referenceOhm())));
   protected readonly fitEndPlace = computed(() => {
@@ -94,10 +125,11 @@ export class SmithChart {
     const steps = this.idealElements().length;
     const fitEnd = this.fitPath()?.end;
     const fitText = fitEnd ? ` The chosen fit ends at ${formatImpedance(fitEnd.re * z0, fitEnd.im * z0, 3)}.` : '';
+    const measuredText = this.measuredLines().map((line) => ` ${line.legend} is drawn as a trace.`).join('');
     return (
       `Smith chart normalised to ${Number(z0.toPrecision(4))} Ω. The load ${formatImpedance(load.re, load.im, 4)} ` +
       `moves through ${steps} element${steps === 1 ? '' : 's'} of the ideal network to the target ` +
-      `${formatImpedance(source.re, -source.im, 4)}, the conjugate of the source.${fitText}`
+      `${formatImpedance(source.re, -source.im, 4)}, the conjugate of the source.${fitText}${measuredText}`
     );
   });
 

@@ -1,4 +1,5 @@
 import type { Fit, NetworkElement } from '../../../shared/api/matches.js';
+import { parseSolveRequest } from '../../../shared/engine/index.js';
 import { FLOOR_DB, SWEEP_POINTS, curveFromTpg, fitTpgCurve, frequencyUnit, idealTpgCurve, sweepRange, tpgDb } from './tpg-sweep.js';
 
 // A 200 Ω load matched to a 50 Ω source at 100 MHz by the real-to-real L section (a fact of the
@@ -10,8 +11,8 @@ const ELEMENTS: NetworkElement[] = [
   { position: 'series', kind: 'inductor', value: (50 * Q) / OMEGA, reactanceOhm: 50 * Q },
   { position: 'shunt', kind: 'capacitor', value: 1 / (OMEGA * (200 / Q)), reactanceOhm: -200 / Q },
 ];
-const SOURCE = { re: 50, im: 0 };
-const LOAD = { re: 200, im: 0 };
+/** The typed 50 Ω source and 200 Ω load at f0, as the workspace reads them. */
+const PORTS = parseSolveRequest({ source: 50, load: 200, frequencyHz: F0 });
 
 /** The sample nearest to f0. */
 function atF0(curve: { frequenciesHz: readonly number[]; tpgDb: readonly number[] }): number {
@@ -24,7 +25,7 @@ function atF0(curve: { frequenciesHz: readonly number[]; tpgDb: readonly number[
 
 describe('idealTpgCurve', () => {
   it('reaches 0 dB at f0 and never rises above it (a passive network never has TPG above 1)', () => {
-    const curve = idealTpgCurve(ELEMENTS, SOURCE, LOAD, F0, null);
+    const curve = idealTpgCurve(ELEMENTS, PORTS);
     expect(curve.frequenciesHz.length).toBe(SWEEP_POINTS);
     expect(atF0(curve)).toBeCloseTo(0, 9);
     for (const db of curve.tpgDb) expect(db).toBeLessThanOrEqual(1e-9);
@@ -53,18 +54,36 @@ describe('fitTpgCurve', () => {
   it('matches the ideal network at f0 when the parts are exact, lossless and without SRF', () => {
     const [l, c] = [ELEMENTS[0].value, ELEMENTS[1].value];
     const parts = new Map([part('L1', 'inductor', l), part('C1', 'capacitor', c / 2)]);
-    expect(atF0(fitTpgCurve(fit([l, c]), parts, SOURCE, LOAD, F0, null))).toBeCloseTo(0, 9);
+    expect(atF0(fitTpgCurve(fit([l, c]), parts, PORTS))).toBeCloseTo(0, 9);
   });
 
   it('loses power when the parts have loss', () => {
     const [l, c] = [ELEMENTS[0].value, ELEMENTS[1].value];
     const parts = new Map([part('L1', 'inductor', l, { esrOhm: 2 }), part('C1', 'capacitor', c / 2, { esrOhm: 0.5 })]);
-    expect(atF0(fitTpgCurve(fit([l, c]), parts, SOURCE, LOAD, F0, null))).toBeLessThan(-0.05);
+    expect(atF0(fitTpgCurve(fit([l, c]), parts, PORTS))).toBeLessThan(-0.05);
   });
 
   it('names a part number the stock lookup did not find', () => {
     const parts = new Map([part('L1', 'inductor', 1e-7)]);
-    expect(() => fitTpgCurve(fit([1e-7, 1e-11]), parts, SOURCE, LOAD, F0, null)).toThrow(/C1/);
+    expect(() => fitTpgCurve(fit([1e-7, 1e-11]), parts, PORTS)).toThrow(/C1/);
+  });
+});
+
+describe('a measured load', () => {
+  // 200 Ω flat from 80 to 110 MHz (Touchstone 2.0 Z data in ohm): the sweep stays inside the file.
+  const file = ['[Version] 2.0', '# MHz Z RI R 50', '[Number of Ports] 1', '[Number of Frequencies] 2', '[Network Data]', '80 200 0', '110 200 0', '[End]'].join('\n');
+  const measured = parseSolveRequest({ source: 50, loadTouchstone: { fileName: 'flat.s1p', text: file }, frequencyHz: F0 });
+
+  it('cuts the sweep to the file and sweeps the file, not the typed model', () => {
+    expect(sweepRange(F0, null, [measured.loadMeasured])).toEqual({ startHz: 80e6, stopHz: 110e6 });
+    const curve = idealTpgCurve(ELEMENTS, measured);
+    expect(curve.frequenciesHz[0]).toBe(80e6);
+    expect(curve.frequenciesHz.at(-1)).toBe(110e6);
+    expect(atF0(curve)).toBeCloseTo(0, 2);
+    // A flat 200 Ω and the typed 200 Ω (a pure resistance, so also flat) agree at every point.
+    const typed = parseSolveRequest({ source: 50, load: 200, frequencyHz: F0 });
+    const sameGrid = idealTpgCurve(ELEMENTS, { ...typed, loadMeasured: measured.loadMeasured });
+    sameGrid.tpgDb.forEach((db, i) => expect(db).toBeCloseTo(curve.tpgDb[i], 9));
   });
 });
 

@@ -1,21 +1,22 @@
 /**
  * The TPG-against-frequency data the match plot draws. The ideal network's curve is computed here
  * with the engine (shared/engine/ladder.ts, sweep.ts: ABCD cascade, `TPG = 4 Rs RL / |A ZL + B +
- * C Zs ZL + D Zs|^2`), with each entered port as R in series with the L or C that gives its X at f0
- * (the engine's default port model, port-model.ts), so the browser and the server draw the same curve.
+ * C Zs ZL + D Zs|^2`), with each typed port as R in series with the L or C that gives its X at f0
+ * (the engine's default port model, port-model.ts) and each measured port from its Touchstone file
+ * (the sweep then stays inside the file's range), so the browser and the server draw the same curve.
  */
 import type { Fit, NetworkElement } from '../../../shared/api/matches.js';
 import {
-  type Complex,
   type IdealElement,
   createLadder,
   elementModel,
   idealLadder,
   partModel,
   linearFrequencies,
-  portFromImpedance,
   sweepTpg,
 } from '../../../shared/engine/index.js';
+import type { SweepPorts } from '../../../shared/snapping/match-sweep.js';
+import { type MeasuredPort, measuredSpan } from '../../../shared/touchstone/measured-port.js';
 
 /** Points per sweep: enough for a smooth curve, few enough to draw at once. */
 export const SWEEP_POINTS = 201;
@@ -32,12 +33,26 @@ export interface TpgCurve {
 
 /**
  * The sweep range around f0: f0 ± 40 %, widened to one and a half band widths either side of f0
- * when a wider band is given, never below 1 % of f0.
+ * when a wider band is given, never below 1 % of f0, and cut to the range every measured port
+ * covers (a file's data is not extrapolated).
  * @returns start and stop in Hz
  */
-export function sweepRange(frequencyHz: number, bandwidthHz: number | null): { startHz: number; stopHz: number } {
+export function sweepRange(frequencyHz: number, bandwidthHz: number | null, measured: readonly (MeasuredPort | null)[] = []): { startHz: number; stopHz: number } {
   const halfSpan = Math.max(DEFAULT_SPAN_FRACTION * frequencyHz, bandwidthHz === null ? 0 : 1.5 * bandwidthHz);
-  return { startHz: Math.max(0.01 * frequencyHz, frequencyHz - halfSpan), stopHz: frequencyHz + halfSpan };
+  let startHz = Math.max(0.01 * frequencyHz, frequencyHz - halfSpan);
+  let stopHz = frequencyHz + halfSpan;
+  const span = measuredSpan(measured);
+  if (span) {
+    startHz = Math.max(startHz, span.firstHz);
+    stopHz = Math.min(stopHz, span.lastHz);
+  }
+  return { startHz, stopHz };
+}
+
+/** The frequencies of a sweep over {@link sweepRange} for these ports (f0 alone when a file holds only f0). */
+export function sweepFrequenciesOf(ports: SweepPorts): Float64Array {
+  const { startHz, stopHz } = sweepRange(ports.frequencyHz, ports.bandwidthHz, [ports.sourceMeasured, ports.loadMeasured]);
+  return stopHz > startHz ? linearFrequencies(startHz, stopHz, SWEEP_POINTS) : Float64Array.of(ports.frequencyHz);
 }
 
 /** `10 log10 TPG`, held at {@link FLOOR_DB} so a deep null does not flatten the plot. */
@@ -52,23 +67,11 @@ function idealElementOf(element: NetworkElement): IdealElement {
 
 /**
  * TPG of an ideal network over the sweep range, in dB.
- * @param source Zs in ohm; @param load ZL in ohm; @param frequencyHz f0 in Hz
+ * @param ports the request's ports over frequency, f0 and band (a parsed solve request fits)
  */
-export function idealTpgCurve(
-  elements: readonly NetworkElement[],
-  source: Complex,
-  load: Complex,
-  frequencyHz: number,
-  bandwidthHz: number | null,
-): TpgCurve {
-  const { startHz, stopHz } = sweepRange(frequencyHz, bandwidthHz);
-  const frequencies = linearFrequencies(startHz, stopHz, SWEEP_POINTS);
-  const tpg = sweepTpg(
-    idealLadder(elements.map(idealElementOf)),
-    portFromImpedance(source, frequencyHz, 'series-equivalent', 'source'),
-    portFromImpedance(load, frequencyHz, 'series-equivalent', 'load'),
-    frequencies,
-  );
+export function idealTpgCurve(elements: readonly NetworkElement[], ports: SweepPorts): TpgCurve {
+  const frequencies = sweepFrequenciesOf(ports);
+  const tpg = sweepTpg(idealLadder(elements.map(idealElementOf)), ports.sourcePort, ports.loadPort, frequencies);
   return { frequenciesHz: Array.from(frequencies), tpgDb: Array.from(tpg, tpgDb) };
 }
 
@@ -110,14 +113,7 @@ export interface StockedPartModelData {
  * @param parts the fit's parts by part number
  * @throws Error naming a part number the lookup did not find
  */
-export function fitTpgCurve(
-  fit: Fit,
-  parts: ReadonlyMap<string, StockedPartModelData>,
-  source: Complex,
-  load: Complex,
-  frequencyHz: number,
-  bandwidthHz: number | null,
-): TpgCurve {
+export function fitTpgCurve(fit: Fit, parts: ReadonlyMap<string, StockedPartModelData>, ports: SweepPorts): TpgCurve {
   const elements = fit.elements.map((element, index) => {
     const models = element.parts.flatMap((used) => {
       const part = parts.get(used.partNumber);
@@ -130,13 +126,7 @@ export function fitTpgCurve(
     });
     return elementModel(element.position, element.arrangement, models, `fit.elements.${index}`);
   });
-  const { startHz, stopHz } = sweepRange(frequencyHz, bandwidthHz);
-  const frequencies = linearFrequencies(startHz, stopHz, SWEEP_POINTS);
-  const tpg = sweepTpg(
-    createLadder(elements),
-    portFromImpedance(source, frequencyHz, 'series-equivalent', 'source'),
-    portFromImpedance(load, frequencyHz, 'series-equivalent', 'load'),
-    frequencies,
-  );
+  const frequencies = sweepFrequenciesOf(ports);
+  const tpg = sweepTpg(createLadder(elements), ports.sourcePort, ports.loadPort, frequencies);
   return { frequenciesHz: Array.from(frequencies), tpgDb: Array.from(tpg, tpgDb) };
 }
