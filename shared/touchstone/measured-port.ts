@@ -14,8 +14,11 @@ import { RANGE_EDGE_RELATIVE, impedanceAtFrequency } from './impedance-interpola
 import { isTouchstoneError } from './touchstone-error.js';
 import { type OnePortImpedance, readOnePortTouchstone } from './touchstone-read.js';
 
-/** Longest file text accepted, characters (a 20,001-point S-parameter file is about 1 MB). */
-export const MAX_MEASURED_TEXT_CHARS = 2_000_000;
+/**
+ * Longest file text accepted, characters: it travels inside a JSON request, which the server takes
+ * up to 1 MB (server/app.ts); a 10,001-point file of 12-digit numbers is about 600,000.
+ */
+export const MAX_MEASURED_TEXT_CHARS = 900_000;
 /** Longest file name kept. */
 export const MAX_MEASURED_FILE_NAME = 200;
 

@@ -167,7 +167,7 @@ export class MatchForm {
     if (!chosen) return;
     const control = port === 'source' ? this.form.controls.sourceFile : this.form.controls.loadFile;
     if (chosen.size > MAX_MEASURED_TEXT_CHARS) {
-      this.fileReadProblems.update((p) => ({ ...p, [port]: `“${chosen.name}” is ${Math.round(chosen.size / 1000)} kB; measured files up to ${MAX_MEASURED_TEXT_CHARS / 1_000_000} MB are accepted.` }));
+      this.fileReadProblems.update((p) => ({ ...p, [port]: `“${chosen.name}” is ${Math.round(chosen.size / 1000)} kB; measured files up to ${MAX_MEASURED_TEXT_CHARS / 1000} kB are accepted.` }));
       control.setValue(null);
       return;
     }
