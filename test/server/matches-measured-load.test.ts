@@ -80,6 +80,21 @@ describe('a measured antenna as the load', () => {
   });
 });
 
+describe('size limits', () => {
+  it('refuses a file text over the limit by name, and a body over 1 MB with 413', async () => {
+    const padded = `${'! padding comment line to make the file long\n'.repeat(20_000)}${text}`;
+    expect(padded.length).toBeGreaterThan(900_000);
+    expect(padded.length).toBeLessThan(1_000_000);
+    const res = await solve({ source: 50, loadTouchstone: { fileName, text: padded }, frequencyHz: '868MHz' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.details[0].field).toBe('loadTouchstone.text');
+    expect(res.body.error.details[0].message).toMatch(/at most 900000/);
+    const huge = await solve({ source: 50, loadTouchstone: { fileName, text: padded + padded }, frequencyHz: '868MHz' });
+    expect(huge.status).toBe(413);
+    expect(huge.body.error.message).toBeTruthy();
+  });
+});
+
 describe('a saved match with a measured load', () => {
   let id = 0;
   let detail: Record<string, any>;
