@@ -90,6 +90,10 @@ describe('a build and its shortfall list', () => {
     const eml = readFileSync(join(mailDir, readdirSync(mailDir).find((f) => !before.has(f))!), 'utf8');
     expect(eml).toContain(supplier);
     expect(eml).toMatch(/filename="?[^"\n]*\.csv/);
+    // The overview above says so too, without a reload.
+    await expect
+      .poll(async () => (await page.getByTestId('shortfall-list-row').filter({ hasText: buildName }).textContent()) ?? '', { timeout: 10_000 })
+      .toMatch(/Sent/);
     await screenshot(page, 'shortfall-sent');
 
     // Receive 500 of the first line under the part number the form proposes.
