@@ -109,22 +109,26 @@ export class MatchForm {
     source: this.serverProblems,
     computation: () => new Set<string>(),
   });
-  /** Fields the designer has typed in. */
-  private readonly dirtyFields = signal<ReadonlySet<string>>(new Set());
+  /** Fields the designer has typed in so far (read when a reading is made, not on every key). */
+  private readonly typedFields = new Set<string>();
 
-  /** What each field reads as, a moment after typing stops. */
-  private readonly readings = toSignal(
+  /**
+   * What each field reads as, a moment after typing stops, with the fields typed in by then: a field
+   * counts as typed only together with a reading of what was typed, so it never shows the reading
+   * of the text it had before (an empty field's "is empty") while the new one is on its way.
+   */
+  private readonly readingState = toSignal(
     this.form.valueChanges.pipe(
       startWith(this.form.getRawValue()),
       debounceTime(READING_DEBOUNCE_MS),
-      map(() => readForm(this.form.getRawValue() as MatchFormValue)),
+      map(() => ({ readings: readForm(this.form.getRawValue() as MatchFormValue), typed: new Set(this.typedFields) as ReadonlySet<string> })),
     ),
-    { initialValue: readForm(this.form.getRawValue() as MatchFormValue) },
+    { initialValue: { readings: readForm(this.form.getRawValue() as MatchFormValue), typed: new Set<string>() as ReadonlySet<string> } },
   );
 
   /** The line under each field: the value read, or a problem (the server's first, then the engine's). */
   protected readonly lines = computed(() => {
-    const readings = this.readings();
+    const { readings, typed } = this.readingState();
     const server = this.serverProblems();
     const edited = this.editedSinceServer();
     const shown: Partial<Record<MatchFormField, FieldReading>> = {};
@@ -133,7 +137,7 @@ export class MatchForm {
       const reading = readings[field];
       if ((field === 'source' || field === 'load') && unreadable[field]) shown[field] = { kind: 'problem', message: unreadable[field] };
       else if (server[field] && !edited.has(field)) shown[field] = { kind: 'problem', message: server[field] };
-      else if (reading?.kind === 'problem' && !(this.attempted() || this.dirtyFields().has(field))) shown[field] = { kind: 'empty' };
+      else if (reading?.kind === 'problem' && !(this.attempted() || typed.has(field))) shown[field] = { kind: 'empty' };
       else if (reading) shown[field] = reading;
     }
     return shown;
@@ -144,7 +148,7 @@ export class MatchForm {
       // A file stands for its port: choosing one counts as editing the port.
       const field = name === 'sourceFile' ? 'source' : name === 'loadFile' ? 'load' : name;
       control.valueChanges.pipe(takeUntilDestroyed()).subscribe(() => {
-        this.dirtyFields.update((fields) => new Set(fields).add(field));
+        this.typedFields.add(field);
         this.editedSinceServer.update((fields) => new Set(fields).add(field));
       });
     }
