@@ -83,22 +83,69 @@ function noCacheForIndex(res: express.Response, path: string): void {
   if (path.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
 }
 
+/** Longest detail value (as JSON) an error answer repeats; longer or unprintable ones are summarised. */
+const MAX_DETAIL_VALUE_CHARS = 1000;
+
+/**
+ * A detail's value as the answer may repeat it: as given when short, else the start of its JSON with
+ * its length, or a note when it cannot be written at all (nested too deep for JSON.stringify).
+ */
+function boundedValue(value: unknown): unknown {
+  if (value === null || typeof value !== 'object') {
+    return typeof value === 'string' && value.length > MAX_DETAIL_VALUE_CHARS ? `${value.slice(0, 200)}… (${value.length} characters)` : value;
+  }
+  let text: string | undefined;
+  try {
+    text = JSON.stringify(value);
+  } catch {
+    return '(a value nested too deeply to repeat)';
+  }
+  if (text === undefined || text.length <= MAX_DETAIL_VALUE_CHARS) return value;
+  return `${text.slice(0, 200)}… (${text.length} characters of JSON)`;
+}
+
+/** A body-parser failure as our error, or null when `err` is not one (http-errors with `expose`). */
+function bodyReadError(err: { type?: string; status?: number; expose?: boolean; message?: string }): HttpError | null {
+  if (err?.type === 'entity.parse.failed') return new HttpError(400, 'invalid_json', 'The request body is not valid JSON.');
+  if (err?.type === 'entity.too.large') return new HttpError(413, 'too_large', 'The request body is larger than 1 MB.');
+  if (err?.type === 'charset.unsupported') {
+    return new HttpError(415, 'unsupported_charset', `The request body's ${err.message ?? 'charset'} is not accepted: send JSON in UTF-8.`);
+  }
+  if (err?.type === 'encoding.unsupported') {
+    return new HttpError(415, 'unsupported_encoding', `The request body's ${err.message ?? 'content encoding'} is not accepted: send it plain, or as gzip, deflate or br.`);
+  }
+  if (err?.expose === true && typeof err.status === 'number' && err.status >= 400 && err.status < 500) {
+    return new HttpError(err.status, 'invalid_body', `The request body could not be read (${err.message ?? 'unreadable'}); nothing was changed.`);
+  }
+  return null;
+}
+
 /** The one error middleware: our errors as they are, a database outage as 503, the rest as 500. */
 function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
+    // A client that hung up mid-request (an upload dropped half-way) has no one to answer. (Not
+    // `req.destroyed`: a request whose body was read to the end is destroyed too.)
+    if (!req.socket || req.socket.destroyed) {
+      logger.info({ url: req.originalUrl, reason: err?.message }, 'client went away before the answer');
+      if (!res.writableEnded) res.end();
+      return;
+    }
     let httpError: HttpError;
     if (err instanceof HttpError) httpError = err;
     else if (isDatabaseUnavailable(err)) httpError = databaseUnavailable();
-    else if (err?.type === 'entity.parse.failed') httpError = new HttpError(400, 'invalid_json', 'The request body is not valid JSON.');
-    else if (err?.type === 'entity.too.large') httpError = new HttpError(413, 'too_large', 'The request body is larger than 1 MB.');
     else {
-      logger.error({ err, url: req.originalUrl }, 'unhandled error');
-      httpError = new HttpError(500, 'internal_error', 'Something went wrong on the server; it has been logged.');
+      const bodyError = bodyReadError(err);
+      if (bodyError) httpError = bodyError;
+      else {
+        logger.error({ err, url: req.originalUrl }, 'unhandled error');
+        httpError = new HttpError(500, 'internal_error', 'Something went wrong on the server; it has been logged.');
+      }
     }
     if (httpError.status === 503) logger.warn({ url: req.originalUrl }, 'database unavailable');
     if (res.headersSent) return;
+    const details = httpError.details?.map((d) => ('value' in d ? { ...d, value: boundedValue(d.value) } : d));
     res.status(httpError.status).json({
-      error: { code: httpError.code, message: httpError.message, ...(httpError.details ? { details: httpError.details } : {}) },
+      error: { code: httpError.code, message: httpError.message, ...(details ? { details } : {}) },
     });
   };
 }

@@ -54,8 +54,10 @@ export function quoteValue(value: unknown): string {
   if (typeof value === 'number') return Number.isNaN(value) ? 'NaN' : String(value);
   if (value === undefined) return 'nothing';
   try {
-    return JSON.stringify(value) ?? String(value);
+    const text = JSON.stringify(value) ?? String(value);
+    return text.length > 200 ? `${text.slice(0, 200)}…` : text;
   } catch {
-    return String(value);
+    // Nested too deeply for JSON (or for String, which recurses through arrays too).
+    return Array.isArray(value) ? 'a deeply nested list' : 'a deeply nested object';
   }
 }

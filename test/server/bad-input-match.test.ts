@@ -153,7 +153,7 @@ interface BodyBreak {
   contentType: string | null;
   payload: string | Buffer;
   /** `required`: the body reads as an empty object, so the required fields are named. */
-  expect: 'invalid_json' | 'body' | 'too_large' | 'required' | 'source';
+  expect: 'invalid_json' | 'body' | 'too_large' | 'required' | 'source' | 'unsupported_charset' | 'unsupported_encoding' | 'invalid_body';
   contentEncoding?: string;
 }
 
@@ -195,25 +195,16 @@ const BODY_BREAKS: BodyBreak[] = [
   { kind: 'body', label: 'gzip of a broken field', contentType: 'application/json', contentEncoding: 'gzip', payload: gzipSync(JSON.stringify({ ...BASES[0], source: 'fifty' })), expect: 'source' },
   { kind: 'body', label: 'gzip of broken JSON', contentType: 'application/json', contentEncoding: 'gzip', payload: gzipSync(base0.slice(0, -3)), expect: 'invalid_json' },
   { kind: 'body', label: 'gzip of over 1 MB', contentType: 'application/json', contentEncoding: 'gzip', payload: gzipSync(' '.repeat(20 * BODY_LIMIT_BYTES) + base0), expect: 'too_large' },
-];
-
-/**
- * Bodies left out for now because they answer 500 (or an HTML page with a stack trace) today; each
- * is the JSON error handler in server/app.ts, not the match routes, and is reported with a
- * reproducer. Move them into BODY_BREAKS once fixed:
- * - a charset body-parser does not read (415 `charset.unsupported` becomes 500);
- * - a Content-Encoding it does not know, or gzip that is not gzip (415/400 become 500);
- * - nesting deep enough that answering with the value quoted in `details` overflows JSON.stringify
- *   (a 400 whose body is Express's HTML error page with the stack).
- */
-export const KNOWN_5XX_BODIES: BodyBreak[] = [
-  { kind: 'body', label: 'unknown charset', contentType: 'application/json; charset=ebcdic', payload: base0, expect: 'body' },
-  { kind: 'body', label: 'ISO-8859-1 charset', contentType: 'application/json; charset=iso-8859-1', payload: base0, expect: 'body' },
-  { kind: 'body', label: 'unknown encoding', contentType: 'application/json', contentEncoding: 'compress', payload: base0, expect: 'body' },
-  { kind: 'body', label: 'gzip that is not', contentType: 'application/json', contentEncoding: 'gzip', payload: 'not gzip at all', expect: 'invalid_json' },
+  // Bodies body-parser cannot read: 415 for a charset or encoding it does not take, 400 for a body that does not inflate.
+  { kind: 'body', label: 'unknown charset', contentType: 'application/json; charset=ebcdic', payload: base0, expect: 'unsupported_charset' },
+  { kind: 'body', label: 'ISO-8859-1 charset', contentType: 'application/json; charset=iso-8859-1', payload: base0, expect: 'unsupported_charset' },
+  { kind: 'body', label: 'unknown encoding', contentType: 'application/json', contentEncoding: 'compress', payload: base0, expect: 'unsupported_encoding' },
+  { kind: 'body', label: 'gzip that is not', contentType: 'application/json', contentEncoding: 'gzip', payload: 'not gzip at all', expect: 'invalid_body' },
+  // Nesting too deep for JSON.stringify: the answer must still be JSON, with the value summarised.
   { kind: 'body', label: 'array nested 100k deep', contentType: 'application/json', payload: '['.repeat(100_000) + ']'.repeat(100_000), expect: 'body' },
   { kind: 'body', label: 'source nested 20k deep', contentType: 'application/json', payload: `{"source":${'{"re":'.repeat(20_000)}1${'}'.repeat(20_000)},"load":12,"frequencyHz":1e8}`, expect: 'source' },
 ];
+
 
 const caseArb: fc.Arbitrary<MatchCase> = fc.oneof(
   { weight: 19, arbitrary: fc.nat({ max: BASES.length - 1 }).chain((base) => fc.array(breaksFor(BASES[base]), { minLength: 1, maxLength: 3 }).map((breaks): MatchCase => ({ kind: 'fields', base, breaks }))) },
@@ -309,7 +300,8 @@ describe('1,000 malformed match requests', () => {
   });
 
   it('never answers 5xx, answers 400 naming each broken field and only those, and saves nothing', async () => {
-    const cases = fc.sample(caseArb, { seed: SEED, numRuns: REQUESTS });
+    // Every whole-body break once, then the seeded sample.
+    const cases: MatchCase[] = [...BODY_BREAKS, ...fc.sample(caseArb, { seed: SEED, numRuns: REQUESTS - BODY_BREAKS.length })];
     const matchesBefore = await count('matches');
     const auditBefore = await count('audit_entries');
     const failures: string[] = [];
@@ -323,7 +315,12 @@ describe('1,000 malformed match requests', () => {
       const error = res.body?.error;
       if (typeof error?.message !== 'string' || error.message.length < 10) return fail(`answered ${res.status} without an error message: ${res.text.slice(0, 200)}`);
       if (c.kind === 'body') {
-        const want = c.expect === 'invalid_json' ? [400, 'invalid_json'] : c.expect === 'too_large' ? [413, 'too_large'] : [400, 'invalid_input'];
+        const want =
+          c.expect === 'invalid_json' ? [400, 'invalid_json']
+          : c.expect === 'too_large' ? [413, 'too_large']
+          : c.expect === 'unsupported_charset' || c.expect === 'unsupported_encoding' ? [415, c.expect]
+          : c.expect === 'invalid_body' ? [400, 'invalid_body']
+          : [400, 'invalid_input'];
         if (res.status !== want[0] || error.code !== want[1]) return fail(`expected ${want.join(' ')}, got ${res.status} ${error.code}: ${error.message}`);
         const fields = (error.details ?? []).map((d: { field: string }) => d.field);
         const named = { body: ['body'], required: ['source', 'frequencyHz'], source: ['source'] }[c.expect as 'body'];
