@@ -9,6 +9,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { openBrowser, screenshot, signInAs, type BrowserSession } from '../support/browser.js';
+import { accessibilityProblems } from '../support/accessibility.js';
 import { DEMO_PASSWORD } from '../../seeds/demo-accounts.js';
 import { DEMO_ANTENNA_FILE } from '../../seeds/make-demo-antenna.js';
 import { readOnePortTouchstone, readTwoPortTouchstone } from '../../shared/touchstone/index.js';
@@ -49,6 +50,8 @@ describe('a measured antenna as the load', () => {
     await page.getByTestId('smith-measured-load').waitFor();
     const legend = (await page.getByTestId('smith-chart').textContent()) ?? '';
     expect(legend).toMatch(/Measured load \(tarnwick-868-chip-antenna\.s1p\), 780 MHz to 960 MHz/);
+    // The measured-file field, its trace and legend pass the same axe check as every main screen.
+    expect(await accessibilityProblems(page, 'match-measured-load'), 'axe (WCAG 2 A/AA) on the measured-load workspace').toEqual([]);
     await page.getByTestId('smith-chart').screenshot({ path: (await screenshot(page, 'match-measured-load')).replace(/\.png$/, '-smith.png') });
     await page.locator('sm-match-form').screenshot({ path: (await screenshot(page, 'match-measured-load')).replace(/\.png$/, '-form.png') });
 
