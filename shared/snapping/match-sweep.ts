@@ -9,7 +9,7 @@ import { idealLadder, type Ladder } from '../engine/ladder.js';
 import { angularFrequency } from '../engine/part-kind.js';
 import { elementImpedance } from '../engine/part-model.js';
 import { linearFrequencies, sweepTpg } from '../engine/sweep.js';
-import type { PortModel } from '../engine/port-model.js';
+import type { SolveInput } from '../engine/solve-request.js';
 import { type MeasuredPort, measuredSpan, measuredTrace } from '../touchstone/measured-port.js';
 import { MIN_FREQUENCY_HZ } from '../engine/port-limits.js';
 import { seriesElement, shuntElement } from '../engine/l-network.js';
@@ -38,15 +38,8 @@ export interface MeasuredTrace {
   impedances: ImpedancePoint[];
 }
 
-/** What a sweep needs of a solve request (shared/engine/solve-request.ts `SolveInput`). */
-export interface SweepPorts {
-  sourcePort: PortModel;
-  loadPort: PortModel;
-  sourceMeasured: MeasuredPort | null;
-  loadMeasured: MeasuredPort | null;
-  frequencyHz: number;
-  bandwidthHz: number | null;
-}
+/** What a sweep needs of a solve request: its ports over frequency, f0 and band. */
+export type SweepPorts = Pick<SolveInput, 'sourcePort' | 'loadPort' | 'sourceMeasured' | 'loadMeasured' | 'frequencyHz' | 'bandwidthHz'>;
 
 /** An impedance in ohm. */
 export interface ImpedancePoint {
