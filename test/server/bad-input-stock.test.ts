@@ -513,9 +513,10 @@ function buildFile(c: StockCase): BuiltFile {
 }
 
 /**
- * U+0000 is kept out of UTF-8 files for now: any NUL byte in one makes the upload answer 500
- * (PostgreSQL's JSONB cannot hold U+0000, and the history record keeps the problems, which quote
- * the cell). Reported with a reproducer; the fix belongs to the importer. SOH (0x01) stands in.
+ * U+0000 is kept out of the mutated UTF-8 files, so each mutation's expected answer stays the one
+ * it is drawn for: a NUL byte anywhere is refused up front as not text (text-encoding.ts), which
+ * stock-import.test.ts checks on its own (in a cell and in a header name, real and dry run). SOH
+ * (0x01) stands in here.
  */
 function withoutNul(bytes: Buffer): Buffer {
   return bytes.includes(0) ? Buffer.from(bytes.map((b) => (b === 0 ? 1 : b))) : bytes;

@@ -241,6 +241,24 @@ describe('encodings and limits', () => {
     expect(await count('parts')).toBe(0);
   });
 
+  it('refuses a file with a NUL byte (in a cell or a header name, real or dry run), naming line and column, applying nothing', async () => {
+    const importsBefore = await count('stock_imports');
+    for (const [text, line, column] of [
+      ['part_number,kind,value,tolerance,quantity,location\nX\u00001,C,1p,B,5,main\n', 2, 2],
+      ['part_number,kind,value,tolerance,quantity,location,no\u0000te\nX1,C,1p,B,5,main,a\n', 1, 54],
+    ] as const) {
+      // Columns count characters from 1: "X" then NUL is column 2; the header's NUL follows 53 characters.
+      for (const dryRun of [false, true]) {
+        const res = await uploadStock(t.app, stores.token, Buffer.from(text, 'utf8'), { dryRun });
+        expect(res.status, JSON.stringify(res.body)).toBe(400);
+        expect(res.body.error.code).toBe('not_utf8');
+        expect(res.body.error.message).toContain(`NUL character (byte 0x00) on line ${line}, column ${column}`);
+      }
+    }
+    expect(await count('parts')).toBe(0);
+    expect(await count('stock_imports')).toBe(importsBefore);
+  });
+
   it('answers 413 for a file over 20 MB and applies nothing', async () => {
     const row = 'C1,C,1p0,B,1,main,' + 'x'.repeat(90) + '\n';
     const big = Buffer.from(HEADER + ',description\n' + row.repeat(Math.ceil((20 * 1024 * 1024) / row.length) + 10));

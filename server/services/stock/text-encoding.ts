@@ -32,7 +32,32 @@ export function decodeUtf8File(bytes: Uint8Array): DecodedText {
     };
   }
   try {
-    return { ok: true, text: new TextDecoder('utf-8', { fatal: true }).decode(bytes) };
+    const text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+    // U+0000 is valid UTF-8 but never text in a stock list (and PostgreSQL cannot store it): a file
+    // with one is UTF-16 without its byte-order mark, or not a text file at all.
+    const nul = bytes.indexOf(0);
+    if (nul >= 0) {
+      let line = 1;
+      let lineStart = 0;
+      for (let i = 0; i < nul; i += 1) {
+        if (bytes[i] === 0x0a) {
+          line += 1;
+          lineStart = i + 1;
+        }
+      }
+      const column = new TextDecoder('utf-8').decode(bytes.subarray(lineStart, nul)).length + 1;
+      return {
+        ok: false,
+        problem: {
+          message:
+            `The file holds a NUL character (byte 0x00) on line ${line}, column ${column} (offset ${nul}): a stock list is plain text, ` +
+            'so this is UTF-16 text without its byte-order mark or not a text file. Save it again as "CSV UTF-8" and upload that.',
+          offset: nul,
+          line,
+        },
+      };
+    }
+    return { ok: true, text };
   } catch {
     const offset = firstInvalidUtf8Offset(bytes);
     let line = 1;
