@@ -1,13 +1,12 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { PartChangeKind } from '../../shared/api/stock.js';
 
 /**
  * What one import did to one part: created, updated or zeroed, the quantity before and after, and
  * the other fields that changed (`before`/`after` hold only those, by their API names).
- * Parts the import left as they were get no row.
+ * Parts the import left as they were get no row; an import has at most one row per part.
  */
 export class StockImportChange extends Model<InferAttributes<StockImportChange>, InferCreationAttributes<StockImportChange>> {
-  declare id: CreationOptional<number>;
   declare importId: number;
   declare partId: number;
   declare change: PartChangeKind;
@@ -19,9 +18,8 @@ export class StockImportChange extends Model<InferAttributes<StockImportChange>,
   static initModel(sequelize: Sequelize): void {
     StockImportChange.init(
       {
-        id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
-        importId: { type: DataTypes.BIGINT, allowNull: false, field: 'import_id' },
-        partId: { type: DataTypes.INTEGER, allowNull: false, field: 'part_id' },
+        importId: { type: DataTypes.BIGINT, allowNull: false, primaryKey: true, field: 'import_id' },
+        partId: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true, field: 'part_id' },
         change: { type: DataTypes.STRING(8), allowNull: false },
         quantityBefore: { type: DataTypes.INTEGER, allowNull: true, field: 'quantity_before' },
         quantityAfter: { type: DataTypes.INTEGER, allowNull: false, field: 'quantity_after' },
