@@ -2,21 +2,24 @@
  * The stock-list import (stock-csv.md, "What an upload does"): read and check every row, then apply
  * all of it in one transaction, or nothing. Every import takes one transaction-level advisory lock
  * ({@link lockStockQuantities}), so two uploads at once run one after the other and each sees the
- * other's result; anything else that writes quantities on hand takes the same lock. Writes are bulk
- * and never a query per row: new parts are COPYed straight into `parts` and their change records
- * made by one INSERT ... SELECT; changed parts are COPYed into a temporary table and updated by one
- * UPDATE ... FROM; zeroed parts by one UPDATE; their change records by one COPY.
+ * other's result; anything else that writes quantities on hand takes the same lock.
+ *
+ * Writes are set-based and never a query per row. The reader hands over the accepted rows already
+ * in COPY text form; they are COPYed into a temporary stage table, and PostgreSQL compares them with
+ * the stock itself: one UPDATE ... FROM changes the parts whose fields or count differ and records
+ * their change rows (before/after of the fields that differ) from its RETURNING; one INSERT ...
+ * SELECT creates the parts the stock lacks and records theirs; in replace mode one UPDATE zeroes the
+ * parts of the named locations the file leaves out, and records theirs. No part row travels to
+ * JavaScript; the counts come from what those statements did.
  */
 import { createHash } from 'node:crypto';
-import { Decimal } from 'decimal.js';
 import { type Sequelize, type Transaction } from 'sequelize';
 import type { StockFileProblem, StockImportMode, StockImportReport } from '../../../shared/api/stock.js';
 import { StockImport } from '../../models/index.js';
 import { recordAudit } from '../audit.js';
 import { conflict } from '../../errors.js';
-import { clientOf, copyRows, type CopyValue } from './copy-rows.js';
-import { PART_ROW_COLUMNS, toleranceOf, type PartRow } from './present-part.js';
-import { fieldsOfColumns, partKey, readStockFile, type CheckedRow, type PartFields, type StockFileReading } from './read-stock-file.js';
+import { clientOf, openBinaryCopy } from './copy-rows.js';
+import { STAGE_COLUMNS, decodeStockFile, fieldsOfColumns, readStockText, splitPartKey, type PartFields, type StageColumn, type StockFileReading } from './read-stock-file.js';
 
 /** Key of the advisory lock every import holds for its transaction ("SMSTOCK" in ASCII). */
 export const STOCK_IMPORT_LOCK_KEY = 0x534d53544f434b;
@@ -34,6 +37,12 @@ const UNIQUE_VIOLATION = '23505';
 
 /** Most rejected rows and warnings a report (and the history) lists; the counts stay exact. */
 export const MAX_REPORTED_PROBLEMS = 1000;
+
+/** `work_mem` of an import's transaction. */
+const IMPORT_WORK_MEM = '64MB';
+
+/** The temporary table accepted rows are COPYed into (dropped at the end of the transaction). */
+const STAGE_TABLE = 'stock_import_stage';
 
 /** One upload as the route hands it over. */
 export interface StockUpload {
@@ -56,9 +65,10 @@ export interface StockImportOutcome {
 interface ComparedField {
   field: keyof PartFields;
   api: string;
-  column: keyof PartRow;
+  column: Exclude<StageColumn, 'line' | 'part_number' | 'location' | 'quantity'>;
 }
 
+/** In the order the old per-row comparison listed them; `tolerance` is one API field over two columns. */
 const COMPARED: readonly ComparedField[] = [
   { field: 'kind', api: 'kind', column: 'kind' },
   { field: 'valueSi', api: 'value', column: 'value_si' },
@@ -77,108 +87,146 @@ const COMPARED: readonly ComparedField[] = [
   { field: 'description', api: 'description', column: 'description' },
 ];
 
-/** The columns of `parts` an import writes, in {@link partCells} order. */
-const PART_COLUMNS = [
-  'part_number',
-  'location',
-  'kind',
-  'value_si',
-  'tolerance_kind',
-  'tolerance_value',
-  'srf_hz',
-  'q',
-  'q_frequency_hz',
-  'esr_ohm',
-  'quantity',
-  'package',
-  'voltage_rating_v',
-  'current_rating_a',
-  'series',
-  'unit_cost',
-  'manufacturer_part',
-  'description',
-] as const;
+/** The columns of `parts` an import writes for a new part: every stage column but `line`. */
+const PART_COLUMNS = STAGE_COLUMNS.map(([column]) => column).filter((column) => column !== 'line');
 
-/** Column types of the temporary table changed parts are copied into (besides `id`). */
-const STAGE_COLUMN_TYPES = `part_number TEXT, location TEXT, kind TEXT, value_si DOUBLE PRECISION, tolerance_kind TEXT,
-  tolerance_value DOUBLE PRECISION, srf_hz DOUBLE PRECISION, q DOUBLE PRECISION, q_frequency_hz DOUBLE PRECISION,
-  esr_ohm DOUBLE PRECISION, quantity INTEGER, package TEXT, voltage_rating_v DOUBLE PRECISION,
-  current_rating_a DOUBLE PRECISION, series TEXT, unit_cost NUMERIC(12, 4), manufacturer_part TEXT, description TEXT`;
+/**
+ * The SQL of one import, built from the columns its file has (identifiers from the constant lists
+ * above, never from the file).
+ *
+ * `apply` is one statement; PostgreSQL runs every part of a WITH on one snapshot, so each sees the
+ * stock as it was before any write here. `j` joins each staged row with the part it names (none
+ * when the part is new; in replace mode also each part of the named locations that no staged row
+ * names, with no line) and keeps one narrow row per pair: the part id, the counts, whether
+ * anything differs and, for parts that differ, the fields that do, before and after. From `j`,
+ * `updated` rewrites the parts that differ, `created` inserts the missing ones, `zeroed` sets to 0
+ * the parts no row names (unless a rejected row names them), and `recorded` writes one change row
+ * for each. The result: the counts and the rows the reserved-stock warnings need.
+ */
+function importStatements(reading: StockFileReading, mode: StockImportMode) {
+  const spoken = new Set(fieldsOfColumns(reading.columns));
+  const compared = COMPARED.filter((c) => spoken.has(c.field));
+  const replace = mode === 'replace';
+  const oldColumn = (column: StageColumn) => `old_${column}`;
+  // In the join `d`: `old_<column>` is the stored part's value, `<column>` the staged row's.
+  const value = (side: 'old' | 'new', column: StageColumn) => (side === 'old' ? `d.${oldColumn(column)}` : `d.${column}`);
+  // The stage holds the cost as the file's canonical decimal text; `parts` as NUMERIC(12,4).
+  const stored = (row: string, column: StageColumn) => (column === 'unit_cost' ? `${row}.unit_cost::numeric` : `${row}.${column}`);
+  const differs = (column: ComparedField['column']) =>
+    `${value('old', column)} IS DISTINCT FROM ${column === 'unit_cost' ? `${value('new', column)}::numeric` : value('new', column)}`;
+  const toleranceDiffers = `(${differs('tolerance_kind')} OR ${differs('tolerance_value')})`;
+  const tolerance = (side: 'old' | 'new') =>
+    `CASE ${value(side, 'tolerance_kind')} WHEN 'relative' THEN jsonb_build_object('mode', 'relative', 'fraction', ${value(side, 'tolerance_value')})` +
+    ` ELSE jsonb_build_object('mode', 'absolute', 'deltaSi', ${value(side, 'tolerance_value')}) END`;
+  // Costs as text: the stored one as NUMERIC(12,4) writes it ("0.0200"), the file's canonical one ("0.02").
+  const jsonValue = (side: 'old' | 'new', column: ComparedField['column']) =>
+    column === 'unit_cost' && side === 'old' ? `to_jsonb(${value(side, column)}::text)` : `to_jsonb(${value(side, column)})`;
+  // Only the fields that differ, by their API names; NULL when only the count changed.
+  const fieldsJson = (side: 'old' | 'new') => {
+    const pieces: string[] = [];
+    for (const c of compared) {
+      if (c.column === 'tolerance_value') continue;
+      if (c.column === 'tolerance_kind') {
+        pieces.push(`CASE WHEN ${toleranceDiffers} THEN jsonb_build_object('tolerance', ${tolerance(side)}) ELSE '{}'::jsonb END`);
+      } else {
+        pieces.push(`CASE WHEN ${differs(c.column)} THEN jsonb_build_object('${c.api}', ${jsonValue(side, c.column)}) ELSE '{}'::jsonb END`);
+      }
+    }
+    return `NULLIF(${pieces.join(' || ')}, '{}'::jsonb)`;
+  };
+  const anyDiffers = ['o.quantity <> s.quantity', ...compared.map((c) => `o.${c.column} IS DISTINCT FROM ${stored('s', c.column)}`)].join(' OR ');
+  const updatedColumns: StageColumn[] = ['quantity', ...compared.map((c) => c.column)];
 
-/** What the file does to one part. */
-interface PlannedWrite {
-  change: 'created' | 'updated';
-  /** The existing part's id; null for a part the import creates. */
-  partId: number | null;
-  part: PartFields;
-  quantityBefore: number | null;
-  before: Record<string, unknown> | null;
-  after: Record<string, unknown> | null;
-}
+  const apply = `WITH j AS MATERIALIZED (
+      SELECT d.line, d.part_id, d.old_quantity, d.quantity, d.reserved, d.changed, d.lone_part_number, d.lone_location,
+        CASE WHEN d.changed THEN ${fieldsJson('old')} END AS before,
+        CASE WHEN d.changed THEN ${fieldsJson('new')} END AS after
+      FROM (
+        SELECT s.*, o.id AS part_id, o.quantity AS old_quantity, o.reserved,
+          CASE WHEN s.line IS NULL THEN o.part_number END AS lone_part_number, CASE WHEN s.line IS NULL THEN o.location END AS lone_location,
+          ${compared.map((c) => `o.${c.column} AS ${oldColumn(c.column)}`).join(', ')},
+          (s.line IS NOT NULL AND o.id IS NOT NULL AND (${anyDiffers})) AS changed
+        FROM ${STAGE_TABLE} s ${replace ? 'FULL' : 'LEFT'} JOIN (SELECT * FROM parts WHERE location = ANY($2::text[])) o
+          ON o.location = s.location AND o.part_number = s.part_number
+        OFFSET 0) d),
+    updated AS (
+      UPDATE parts p SET ${updatedColumns.map((c) => `${c} = ${stored('s', c)}`).join(', ')}, last_import_id = $1, updated_at = now()
+      FROM j JOIN ${STAGE_TABLE} s ON s.line = j.line
+      WHERE j.changed AND p.id = j.part_id
+      RETURNING p.id, j.old_quantity AS quantity_before, j.quantity AS quantity_after, j.before, j.after),
+    created AS (
+      INSERT INTO parts (${PART_COLUMNS.join(', ')}, last_import_id)
+      SELECT ${PART_COLUMNS.map((c) => stored('s', c)).join(', ')}, $1 FROM ${STAGE_TABLE} s JOIN j ON j.line = s.line
+      WHERE j.part_id IS NULL
+      RETURNING id, quantity),
+    ${
+      replace
+        ? `zeroed AS (
+      UPDATE parts p SET quantity = 0, last_import_id = $1, updated_at = now()
+      FROM j WHERE j.line IS NULL AND j.old_quantity <> 0 AND p.id = j.part_id
+        AND NOT EXISTS (SELECT 1 FROM unnest($3::text[], $4::text[]) AS r(location, part_number)
+          WHERE r.location = j.lone_location AND r.part_number = j.lone_part_number)
+      RETURNING p.id, j.old_quantity AS quantity_before, j.reserved, j.lone_part_number AS part_number, j.lone_location AS location),`
+        : ''
+    }
+    recorded AS (
+      INSERT INTO stock_import_changes (import_id, part_id, change, quantity_before, quantity_after, before, after)
+      SELECT $1, id, 'updated', quantity_before, quantity_after, before, after FROM updated
+      UNION ALL SELECT $1, id, 'created', NULL, quantity, NULL, NULL FROM created
+      ${replace ? "UNION ALL SELECT $1, id, 'zeroed', quantity_before, 0, NULL, NULL FROM zeroed" : ''})
+    SELECT (SELECT count(*) FROM updated)::int AS updated, (SELECT count(*) FROM created)::int AS created,
+      ${replace ? '(SELECT count(*) FROM zeroed)::int' : '0'} AS zeroed,
+      (SELECT coalesce(json_agg(json_build_array(line, quantity, reserved) ORDER BY line), '[]'::json)
+        FROM j WHERE j.line IS NOT NULL AND j.reserved > j.quantity) AS below_reserved,
+      ${
+        replace
+          ? "(SELECT coalesce(json_agg(json_build_array(part_number, location, reserved) ORDER BY location, part_number), '[]'::json) FROM zeroed WHERE reserved > 0)"
+          : "'[]'::json"
+      } AS zeroed_reserved`;
 
-/** The whole plan of an import, computed from the file and the locked current stock. */
-interface ImportPlan {
-  writes: PlannedWrite[];
-  zeroed: { id: number; quantityBefore: number }[];
-  unchanged: number;
-  warnings: StockFileProblem[];
+  return {
+    apply,
+    kept: `SELECT count(*)::int AS kept FROM unnest($2::text[], $3::text[]) AS r(location, part_number)
+      WHERE r.location = ANY($1::text[])
+        AND EXISTS (SELECT 1 FROM parts p WHERE p.location = r.location AND p.part_number = r.part_number)
+        AND NOT EXISTS (SELECT 1 FROM ${STAGE_TABLE} s WHERE s.location = r.location AND s.part_number = r.part_number)`,
+  };
 }
 
 /**
- * Imports one stock-list file.
+ * Imports one stock-list file. The transaction (and the stock lock) is taken first and the file is
+ * read into the stage table while it is read; a refused file rolls all of that back.
  * @throws HttpError 400 (not UTF-8) or 413 (too many rows) before anything is applied
  */
 export async function importStockList(sequelize: Sequelize, upload: StockUpload): Promise<StockImportOutcome> {
-  const reading = readStockFile(upload.bytes);
+  const text = decodeStockFile(upload.bytes);
   const sha256 = createHash('sha256').update(upload.bytes).digest('hex');
-  const locations = [...new Set(reading.rows.map((row) => row.part.location))].sort();
-  const refused = reading.rejected.length > 0 && (!upload.skipInvalid || reading.fatal);
-
-  if (refused) {
-    const report = reportOf(upload, reading, { created: 0, updated: 0, unchanged: 0, zeroed: 0 }, reading.warnings, null, false);
-    if (!upload.dryRun) {
-      const entry = await StockImport.create(historyEntry(upload, reading, sha256, locations, 'rejected', report, reading.warnings));
-      report.importId = Number(entry.id);
-    }
-    return { status: 422, report };
-  }
 
   const transaction = await sequelize.transaction();
+  let reading: StockFileReading;
   try {
     await lockStockQuantities(sequelize, transaction);
-    // Under the lock no other import or quantity writer runs, so a plain read is the state to compare with.
-    const existing = locations.length
-      ? (await clientOf(transaction).query<PartRow>(`SELECT ${PART_ROW_COLUMNS} FROM parts WHERE location = ANY($1::text[])`, [locations])).rows
-      : [];
-    const plan = planImport(reading, existing, upload.mode);
-    const warnings = [...reading.warnings, ...plan.warnings];
-    const counts = {
-      created: plan.writes.filter((w) => w.change === 'created').length,
-      updated: plan.writes.filter((w) => w.change === 'updated').length,
-      unchanged: plan.unchanged,
-      zeroed: plan.zeroed.length,
-    };
-    const report = reportOf(upload, reading, counts, warnings, null, !upload.dryRun);
-    const entry = await StockImport.create(historyEntry(upload, reading, sha256, locations, 'applied', report, warnings), { transaction });
-    const importId = Number(entry.id);
-    await applyPlan(transaction, importId, plan);
-    await recordAudit(
-      {
-        actorId: upload.userId,
-        action: 'stock.import',
-        entityType: 'stock_import',
-        entityId: importId,
-        after: { fileName: upload.fileName, sha256, mode: upload.mode, skipInvalid: upload.skipInvalid, rowsRead: reading.rowsRead, ...counts, rejectedRows: reading.rejectedRows },
-      },
-      transaction,
-    );
-    if (upload.dryRun) {
+    const client = clientOf(transaction);
+    // Room to hash the whole file and the stock of its locations in memory (the default 4 MB spills
+    // 100,000-row joins to disk), and no merge joins: they sort both sides by text under the
+    // database's collation, many times slower than hashing them. No JIT: compiling the plan's
+    // expressions costs more than it saves on one pass over the rows. For this transaction only.
+    await client.query(`SET LOCAL work_mem = '${IMPORT_WORK_MEM}'; SET LOCAL enable_mergejoin = off; SET LOCAL jit = off`);
+    await client.query(`CREATE TEMPORARY TABLE ${STAGE_TABLE} (${STAGE_COLUMNS.map(([name, type]) => `${name} ${type}`).join(', ')}) ON COMMIT DROP`);
+    const copy = openBinaryCopy(transaction, STAGE_TABLE, STAGE_COLUMNS.map(([name]) => name));
+    try {
+      reading = await readStockText(text, (chunk) => copy.write(chunk));
+    } catch (error) {
+      await copy.abort();
+      throw error;
+    }
+    if (reading.rejected.length > 0 && (!upload.skipInvalid || reading.fatal)) {
+      await copy.abort();
       await transaction.rollback();
     } else {
-      await transaction.commit();
-      report.importId = importId;
+      await copy.end();
+      return await applyImport(transaction, upload, reading, sha256);
     }
-    return { status: 200, report };
   } catch (error) {
     await transaction.rollback().catch(() => undefined);
     if ((error as { code?: string }).code === UNIQUE_VIOLATION) {
@@ -186,65 +234,84 @@ export async function importStockList(sequelize: Sequelize, upload: StockUpload)
     }
     throw error;
   }
+
+  // Refused: nothing applied; the history keeps the attempt (not for a dry run).
+  const report = reportOf(upload, reading, { created: 0, updated: 0, unchanged: 0, zeroed: 0 }, reading.warnings, null, false);
+  if (!upload.dryRun) {
+    const entry = await StockImport.create(historyEntry(upload, reading, sha256, reading.locations, 'rejected', report, reading.warnings));
+    report.importId = Number(entry.id);
+  }
+  return { status: 422, report };
 }
 
-/** Compares the file with the current stock of its locations: what to create, update and zero. */
-function planImport(reading: StockFileReading, existing: PartRow[], mode: StockImportMode): ImportPlan {
-  const byKey = new Map(existing.map((row) => [partKey(row.part_number, row.location), row]));
-  const spoken = new Set(fieldsOfColumns(reading.columns));
-  const compared = COMPARED.filter((c) => spoken.has(c.field));
-  const plan: ImportPlan = { writes: [], zeroed: [], unchanged: 0, warnings: [] };
-  const inFile = new Set<string>();
-
-  for (const row of reading.rows) {
-    const key = partKey(row.part.partNumber, row.part.location);
-    inFile.add(key);
-    const current = byKey.get(key);
-    if (!current) {
-      plan.writes.push({ change: 'created', partId: null, part: row.part, quantityBefore: null, before: null, after: null });
-      continue;
-    }
-    let before: Record<string, unknown> | null = null;
-    let after: Record<string, unknown> | null = null;
-    for (const c of compared) {
-      if (sameValue(c.field, current[c.column], row.part[c.field])) continue;
-      before ??= {};
-      after ??= {};
-      if (c.api === 'tolerance') {
-        before.tolerance = toleranceOf(current.tolerance_kind, current.tolerance_value);
-        after.tolerance = toleranceOf(row.part.toleranceKind, row.part.toleranceValue);
-      } else {
-        before[c.api] = current[c.column];
-        after[c.api] = row.part[c.field];
-      }
-    }
-    if (current.quantity === row.part.quantity && after === null) {
-      plan.unchanged += 1;
-    } else {
-      const merged = mergeIntoCurrent(current, row.part, spoken);
-      plan.writes.push({ change: 'updated', partId: current.id, part: merged, quantityBefore: current.quantity, before: before ?? {}, after: after ?? {} });
-    }
-    warnIfBelowReserved(plan, row, current);
+/** Applies a staged file inside `transaction`, records it, and commits (rolls back for a dry run). */
+async function applyImport(transaction: Transaction, upload: StockUpload, reading: StockFileReading, sha256: string): Promise<StockImportOutcome> {
+  const client = clientOf(transaction);
+  // The history entry's id first, so the parts and change rows can carry it; the entry itself is
+  // written once the counts are known.
+  const [{ id }] = (await client.query<{ id: string }>("SELECT nextval(pg_get_serial_sequence('stock_imports', 'id')) AS id")).rows;
+  const importId = Number(id);
+  const { counts, warnings: applyWarnings } = await applyRows(transaction, importId, reading, upload.mode);
+  const warnings = [...reading.warnings, ...applyWarnings];
+  const report = reportOf(upload, reading, counts, warnings, null, !upload.dryRun);
+  await StockImport.create({ id: importId, ...historyEntry(upload, reading, sha256, reading.locations, 'applied', report, warnings) }, { transaction });
+  await recordAudit(
+    {
+      actorId: upload.userId,
+      action: 'stock.import',
+      entityType: 'stock_import',
+      entityId: importId,
+      after: { fileName: upload.fileName, sha256, mode: upload.mode, skipInvalid: upload.skipInvalid, rowsRead: reading.rowsRead, ...counts, rejectedRows: reading.rejectedRows },
+    },
+    transaction,
+  );
+  if (upload.dryRun) {
+    await transaction.rollback();
+  } else {
+    await transaction.commit();
+    report.importId = importId;
   }
+  return { status: 200, report };
+}
 
-  if (mode === 'replace') {
-    for (const row of existing) {
-      const key = partKey(row.part_number, row.location);
-      if (inFile.has(key) || reading.rejectedKeys.has(key)) continue;
-      if (row.quantity === 0) continue;
-      plan.zeroed.push({ id: row.id, quantityBefore: row.quantity });
-      if (row.reserved > 0) {
-        plan.warnings.push({
-          line: 0,
-          column: 'quantity',
-          value: '',
-          message: `part ${row.part_number} at ${row.location} is not in the file, so replace mode sets it to 0, but ${row.reserved} are reserved for builds`,
-        });
-      }
-    }
-    const kept = [...reading.rejectedKeys].filter((key) => byKey.has(key) && !inFile.has(key)).length;
+/** What applying did: the counts, and the warnings only the current stock can tell. */
+interface Applied {
+  counts: { created: number; updated: number; unchanged: number; zeroed: number };
+  warnings: StockFileProblem[];
+}
+
+/**
+ * Applies the staged rows inside `transaction` (which holds the stock lock, so the stock compared
+ * with is the stock written to).
+ */
+async function applyRows(transaction: Transaction, importId: number, reading: StockFileReading, mode: StockImportMode): Promise<Applied> {
+  const client = clientOf(transaction);
+  const sql = importStatements(reading, mode);
+  const warnings: StockFileProblem[] = [];
+  const rejectedKeys = [...reading.rejectedKeys].map(splitPartKey);
+  const rejectedLocations = rejectedKeys.map((key) => key.location);
+  const rejectedNumbers = rejectedKeys.map((key) => key.partNumber);
+  const [result] = (
+    await client.query<{ updated: number; created: number; zeroed: number; below_reserved: [number, number, number][]; zeroed_reserved: [string, string, number][] }>(
+      sql.apply,
+      mode === 'replace' ? [importId, reading.locations, rejectedLocations, rejectedNumbers] : [importId, reading.locations],
+    )
+  ).rows;
+  for (const [line, quantity, reserved] of result.below_reserved) {
+    warnings.push({ line, column: 'quantity', value: String(quantity), message: `quantity ${quantity} is below the ${reserved} reserved for builds; those builds will be short` });
+  }
+  for (const [partNumber, location, reserved] of result.zeroed_reserved) {
+    warnings.push({
+      line: 0,
+      column: 'quantity',
+      value: '',
+      message: `part ${partNumber} at ${location} is not in the file, so replace mode sets it to 0, but ${reserved} are reserved for builds`,
+    });
+  }
+  if (mode === 'replace' && rejectedKeys.length > 0) {
+    const [{ kept }] = (await client.query<{ kept: number }>(sql.kept, [reading.locations, rejectedLocations, rejectedNumbers])).rows;
     if (kept > 0) {
-      plan.warnings.push({
+      warnings.push({
         line: 0,
         column: 'part_number',
         value: '',
@@ -252,82 +319,8 @@ function planImport(reading: StockFileReading, existing: PartRow[], mode: StockI
       });
     }
   }
-  return plan;
-}
-
-function warnIfBelowReserved(plan: ImportPlan, row: CheckedRow, current: PartRow): void {
-  if (row.part.quantity < current.reserved) {
-    plan.warnings.push({
-      line: row.line,
-      column: 'quantity',
-      value: String(row.part.quantity),
-      message: `quantity ${row.part.quantity} is below the ${current.reserved} reserved for builds; those builds will be short`,
-    });
-  }
-}
-
-/** The part as it will be: the file's value for every field the file speaks for, the current one for the rest. */
-function mergeIntoCurrent(current: PartRow, part: PartFields, spoken: ReadonlySet<keyof PartFields>): PartFields {
-  const merged: PartFields = { ...part };
-  for (const c of COMPARED) {
-    if (!spoken.has(c.field)) (merged as unknown as Record<string, unknown>)[c.field] = current[c.column];
-  }
-  return merged;
-}
-
-function sameValue(field: keyof PartFields, stored: unknown, incoming: unknown): boolean {
-  if (stored === null || incoming === null) return stored === incoming;
-  // NUMERIC(12,4) comes back as "0.0120"; the file's cost is already canonical ("0.012").
-  if (field === 'unitCost') return canonicalDecimalText(stored as string) === incoming || new Decimal(stored as string).equals(incoming as string);
-  return stored === incoming;
-}
-
-/** `"0.0120"` -> `"0.012"`, `"3.0000"` -> `"3"`: trailing fraction zeros dropped, as Decimal#toFixed() writes it. */
-function canonicalDecimalText(text: string): string {
-  return text.includes('.') ? text.replace(/0+$/, '').replace(/\.$/, '') : text;
-}
-
-/** Writes the plan inside `transaction`: new parts, changed parts, zeroed parts, then every change record. */
-async function applyPlan(transaction: Transaction, importId: number, plan: ImportPlan): Promise<void> {
-  const client = clientOf(transaction);
-  const created = plan.writes.filter((w) => w.change === 'created');
-  const updated = plan.writes.filter((w) => w.change === 'updated');
-
-  if (created.length > 0) {
-    // Straight into parts (ids from the column default), then their change records from what landed.
-    await copyRows(transaction, 'parts', [...PART_COLUMNS, 'last_import_id'], created.map((w) => [...partCells(w.part), importId]));
-    await client.query(
-      `INSERT INTO stock_import_changes (import_id, part_id, change, quantity_before, quantity_after)
-       SELECT $1, id, 'created', NULL, quantity FROM parts WHERE last_import_id = $1`,
-      [importId],
-    );
-  }
-  if (updated.length > 0) {
-    await client.query(`CREATE TEMPORARY TABLE stock_import_stage (id INTEGER PRIMARY KEY, ${STAGE_COLUMN_TYPES}) ON COMMIT DROP`);
-    await copyRows(transaction, 'stock_import_stage', ['id', ...PART_COLUMNS], updated.map((w) => [w.partId, ...partCells(w.part)]));
-    await client.query(
-      `UPDATE parts p SET ${PART_COLUMNS.slice(2).map((c) => `${c} = s.${c}`).join(', ')}, last_import_id = $1, updated_at = now()
-       FROM stock_import_stage s WHERE p.id = s.id`,
-      [importId],
-    );
-  }
-  if (plan.zeroed.length > 0) {
-    await client.query('UPDATE parts SET quantity = 0, last_import_id = $1, updated_at = now() WHERE id = ANY($2::int[])', [importId, plan.zeroed.map((z) => z.id)]);
-  }
-  const fieldsOrNull = (fields: Record<string, unknown> | null) => (fields && Object.keys(fields).length > 0 ? fields : null);
-  const changeRows: CopyValue[][] = updated.map((w) => [importId, w.partId, 'updated', w.quantityBefore, w.part.quantity, fieldsOrNull(w.before), fieldsOrNull(w.after)]);
-  for (const z of plan.zeroed) changeRows.push([importId, z.id, 'zeroed', z.quantityBefore, 0, null, null]);
-  if (changeRows.length > 0) {
-    await copyRows(transaction, 'stock_import_changes', ['import_id', 'part_id', 'change', 'quantity_before', 'quantity_after', 'before', 'after'], changeRows);
-  }
-}
-
-/** One part's cells in {@link PART_COLUMNS} order. */
-function partCells(p: PartFields): CopyValue[] {
-  return [
-    p.partNumber, p.location, p.kind, p.valueSi, p.toleranceKind, p.toleranceValue, p.srfHz, p.q, p.qFrequencyHz, p.esrOhm,
-    p.quantity, p.package, p.voltageRatingV, p.currentRatingA, p.series, p.unitCost, p.manufacturerPart, p.description,
-  ];
+  const { created, updated, zeroed } = result;
+  return { counts: { created, updated, unchanged: reading.accepted - created - updated, zeroed }, warnings };
 }
 
 function capped(problems: StockFileProblem[]): StockFileProblem[] {
