@@ -9,9 +9,10 @@
  * for a part row held by a build, and no deadlock can form between them.
  *
  * Receiving computes each received part's new on-hand quantity (current + received) and enters it
- * through the stock-list importer, which runs in a transaction of its own. Marking a build built
- * lowers on-hand quantities. Both take this transaction-level advisory lock first, so a build
- * consumed between receiving's read and its import cannot be overwritten by the import.
+ * through the stock-list importer inside its own transaction. Marking a build built lowers on-hand
+ * quantities. Both take this transaction-level advisory lock first and then the stock lock
+ * exclusively (always in that order, so they cannot deadlock), so neither a build consumed nor a
+ * stores upload between receiving's read and its import can be overwritten by the import.
  */
 import type { Sequelize, Transaction } from 'sequelize';
 import { Build } from '../../models/index.js';

@@ -6,9 +6,12 @@
  * changes), a new number is created to the line's buy-to spec. Then the lines count what they
  * received, and a list whose every line is covered is marked received.
  *
- * The new on-hand quantity is computed before the import runs (which uses a transaction of its
- * own), so this holds the on-hand change lock (builds/build-lifecycle-lock.ts) from that read until
- * the lines are updated: a build marked built meanwhile waits, and its consumption is not lost.
+ * The new on-hand quantity (stocked + received) is computed from a read of the stock and written
+ * back through the importer, so the whole receipt is one transaction that holds, from before that
+ * read until the lines are updated, the on-hand change lock (builds/build-lifecycle-lock.ts) and
+ * the stock lock every import takes: a build marked built or a stores upload meanwhile waits and
+ * then sees the receipt, so neither is overwritten. The import runs inside that transaction, so a
+ * receipt that fails at any step leaves stock, lines and history as they were.
  */
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { ReceiveLine, ReceiveShortfallResponse } from '../../../shared/api/builds.js';
@@ -19,7 +22,7 @@ import { badRequest, notFound, unprocessable } from '../../errors.js';
 import { recordAudit } from '../audit.js';
 import { lockOnHandChanges } from '../builds/build-lifecycle-lock.js';
 import { csvCell, stockCsvCells } from '../stock/export-stock-list.js';
-import { importStockList } from '../stock/import-stock-list.js';
+import { importStockList, lockStockQuantities } from '../stock/import-stock-list.js';
 import { PART_ROW_COLUMNS, type PartRow } from '../stock/present-part.js';
 import { DEFAULT_LOCATION, STOCK_COLUMNS } from '../stock/stock-columns.js';
 import { readShortfallList } from './read-shortfall-list.js';
@@ -76,6 +79,7 @@ function newPartRow(row: ReceiptRow, buildId: number, listId: number): PartRow {
 export async function receiveShortfall(sequelize: Sequelize, buildId: number, lines: readonly ReceiveLine[], userId: number | null): Promise<ReceiveShortfallResponse> {
   const outcome = await sequelize.transaction(async (transaction) => {
     await lockOnHandChanges(sequelize, transaction);
+    await lockStockQuantities(sequelize, transaction);
     const list = await ShortfallList.findOne({ where: { buildId }, transaction, lock: transaction.LOCK.UPDATE });
     if (!list) throw notFound(`A shortfall list of build ${buildId}`);
     const listLines = await ShortfallLine.findAll({ where: { listId: list.id }, transaction });
@@ -139,14 +143,15 @@ export async function receiveShortfall(sequelize: Sequelize, buildId: number, li
         return stockCsvCells(part).map(csvCell).join(',');
       }),
     ].join('\r\n');
-    const imported = await importStockList(sequelize, {
+    const receipt = {
       bytes: Buffer.from(`${csv}\r\n`, 'utf8'),
       fileName: `receipt-build-${buildId}-shortfall-${list.id}.csv`,
       mode: 'merge',
       dryRun: false,
       skipInvalid: false,
       userId,
-    });
+    } as const;
+    const imported = await importStockList(sequelize, receipt, transaction);
     if (imported.status !== 200 || imported.report.importId === null) {
       const first = imported.report.rejected[0];
       throw unprocessable(

@@ -196,13 +196,19 @@ function importStatements(reading: StockFileReading, mode: StockImportMode) {
 /**
  * Imports one stock-list file. The transaction (and the stock lock) is taken first and the file is
  * read into the stage table while it is read; a refused file rolls all of that back.
+ *
+ * With `within`, the import runs inside that transaction, in a savepoint: applied, it is committed
+ * (or rolled back) with the caller's work, so a caller that reads quantities under the stock lock
+ * and writes them back through the importer (receiving) does both atomically; refused or a dry
+ * run, only the savepoint is rolled back. The caller's transaction keeps the import's planner
+ * settings (`work_mem`, no merge joins, no JIT) until it ends.
  * @throws HttpError 400 (not UTF-8) or 413 (too many rows) before anything is applied
  */
-export async function importStockList(sequelize: Sequelize, upload: StockUpload): Promise<StockImportOutcome> {
+export async function importStockList(sequelize: Sequelize, upload: StockUpload, within?: Transaction): Promise<StockImportOutcome> {
   const text = decodeStockFile(upload.bytes);
   const sha256 = createHash('sha256').update(upload.bytes).digest('hex');
 
-  const transaction = await sequelize.transaction();
+  const transaction = await sequelize.transaction(within ? { transaction: within } : {});
   let reading: StockFileReading;
   try {
     await lockStockQuantities(sequelize, transaction);
@@ -225,7 +231,7 @@ export async function importStockList(sequelize: Sequelize, upload: StockUpload)
       await transaction.rollback();
     } else {
       await copy.end();
-      return await applyImport(transaction, upload, reading, sha256);
+      return await applyImport(transaction, upload, reading, sha256, within !== undefined);
     }
   } catch (error) {
     await transaction.rollback().catch(() => undefined);
@@ -245,7 +251,7 @@ export async function importStockList(sequelize: Sequelize, upload: StockUpload)
 }
 
 /** Applies a staged file inside `transaction`, records it, and commits (rolls back for a dry run). */
-async function applyImport(transaction: Transaction, upload: StockUpload, reading: StockFileReading, sha256: string): Promise<StockImportOutcome> {
+async function applyImport(transaction: Transaction, upload: StockUpload, reading: StockFileReading, sha256: string, nested: boolean): Promise<StockImportOutcome> {
   const client = clientOf(transaction);
   // The history entry's id first, so the parts and change rows can carry it; the entry itself is
   // written once the counts are known.
@@ -268,6 +274,8 @@ async function applyImport(transaction: Transaction, upload: StockUpload, readin
   if (upload.dryRun) {
     await transaction.rollback();
   } else {
+    // Released into the caller's transaction, the stage table would outlive the import.
+    if (nested) await clientOf(transaction).query(`DROP TABLE ${STAGE_TABLE}`);
     await transaction.commit();
     report.importId = importId;
   }
