@@ -11,8 +11,8 @@ import type { Logger } from 'pino';
 import type { ServerConfig } from './config.js';
 import type { AppContext } from './app-context.js';
 import { createPassport, requireSignIn } from './auth/passport.js';
-import { HttpError, databaseUnavailable } from './errors.js';
-import { isDatabaseUnavailable } from './db.js';
+import { BUSY_RETRY_AFTER_S, HttpError } from './errors.js';
+import { unavailableError } from './db.js';
 import { authRouter } from './routes/auth/auth-router.js';
 import { usersRouter } from './routes/users/users-router.js';
 import { healthRouter } from './routes/health/health-router.js';
@@ -120,7 +120,7 @@ function bodyReadError(err: { type?: string; status?: number; expose?: boolean; 
   return null;
 }
 
-/** The one error middleware: our errors as they are, a database outage as 503, the rest as 500. */
+/** The one error middleware: our errors as they are, a database outage or a full pool as 503, the rest as 500. */
 function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, _next) => {
     // A client that hung up mid-request (an upload dropped half-way) has no one to answer. (Not
@@ -131,8 +131,9 @@ function errorHandler(logger: Logger): ErrorRequestHandler {
       return;
     }
     let httpError: HttpError;
+    const unavailable = err instanceof HttpError ? null : unavailableError(err);
     if (err instanceof HttpError) httpError = err;
-    else if (isDatabaseUnavailable(err)) httpError = databaseUnavailable();
+    else if (unavailable) httpError = unavailable;
     else {
       const bodyError = bodyReadError(err);
       if (bodyError) httpError = bodyError;
@@ -141,8 +142,10 @@ function errorHandler(logger: Logger): ErrorRequestHandler {
         httpError = new HttpError(500, 'internal_error', 'Something went wrong on the server; it has been logged.');
       }
     }
-    if (httpError.status === 503) logger.warn({ url: req.originalUrl }, 'database unavailable');
+    if (httpError.code === 'database_unavailable') logger.warn({ url: req.originalUrl }, 'database unavailable');
+    if (httpError.code === 'server_busy') logger.warn({ url: req.originalUrl }, 'no database connection came free in time');
     if (res.headersSent) return;
+    if (httpError.code === 'server_busy') res.set('Retry-After', String(BUSY_RETRY_AFTER_S));
     const details = httpError.details?.map((d) => ('value' in d ? { ...d, value: boundedValue(d.value) } : d));
     res.status(httpError.status).json({
       error: { code: httpError.code, message: httpError.message, ...(details ? { details } : {}) },

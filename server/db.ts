@@ -3,16 +3,26 @@
  * The pool reconnects by itself: once PostgreSQL is back, the next request gets a fresh connection.
  */
 import { Sequelize, ConnectionError, ConnectionAcquireTimeoutError } from 'sequelize';
+import { databaseUnavailable, serverBusy, type HttpError } from './errors.js';
 
-/** Opens a Sequelize instance on `databaseUrl` (nothing is connected until the first query). */
-export function openDatabase(databaseUrl: string): Sequelize {
+/** Opens a Sequelize instance on `databaseUrl` (nothing is connected until the first query); `pool` for tests of a full pool. */
+export function openDatabase(databaseUrl: string, pool: { max?: number; acquireMs?: number } = {}): Sequelize {
   return new Sequelize(databaseUrl, {
     dialect: 'postgres',
     logging: false,
-    pool: { max: 10, min: 0, idle: 10_000, acquire: 10_000, evict: 5_000 },
+    pool: { max: pool.max ?? 10, min: 0, idle: 10_000, acquire: pool.acquireMs ?? 10_000, evict: 5_000 },
     dialectOptions: { connectionTimeoutMillis: 3_000, application_name: 'shelfmatch' },
     retry: { max: 0 },
   });
+}
+
+/**
+ * Whether `error` is the pool's acquire timeout: PostgreSQL answered, but no connection came free
+ * within the acquire time (every one in use, or the event loop too busy to hand one out).
+ * Sequelize's ConnectionAcquireTimeoutError is a ConnectionError, so ask this first.
+ */
+export function isPoolBusy(error: unknown): boolean {
+  return error instanceof ConnectionAcquireTimeoutError;
 }
 
 /** Whether `error` means PostgreSQL is unreachable (refused, reset, shut down, pool timed out). */
@@ -26,8 +36,25 @@ export function isDatabaseUnavailable(error: unknown): boolean {
   return /Connection terminated|terminating connection|ECONNREFUSED|Client has encountered a connection error/i.test(e.message ?? '');
 }
 
-/** Answers `'up'` when a trivial query succeeds within `timeoutMs`, else `'down'`. */
-export async function probeDatabase(sequelize: Sequelize, timeoutMs = 2_000): Promise<'up' | 'down'> {
+/** The 503 that `error` stands for (the server busy, or the database out of reach), or null. */
+export function unavailableError(error: unknown): HttpError | null {
+  if (isPoolBusy(error)) return serverBusy();
+  if (isDatabaseUnavailable(error)) return databaseUnavailable();
+  return null;
+}
+
+/** Whether every connection of the pool is in use and requests queue for one. */
+function poolIsFull(sequelize: Sequelize): boolean {
+  const pool = (sequelize.connectionManager as unknown as { pool?: { using?: number; maxSize?: number; waiting?: number } }).pool;
+  return typeof pool?.using === 'number' && typeof pool.maxSize === 'number' && pool.using >= pool.maxSize && (pool.waiting ?? 0) > 0;
+}
+
+/**
+ * Answers `'up'` when a trivial query succeeds within `timeoutMs`; `'busy'` when it did not because
+ * it was still queued for a connection of a full pool (PostgreSQL answers; the server is loaded);
+ * else `'down'`.
+ */
+export async function probeDatabase(sequelize: Sequelize, timeoutMs = 2_000): Promise<'up' | 'down' | 'busy'> {
   let timer: NodeJS.Timeout | undefined;
   try {
     await Promise.race([
@@ -37,8 +64,8 @@ export async function probeDatabase(sequelize: Sequelize, timeoutMs = 2_000): Pr
       }),
     ]);
     return 'up';
-  } catch {
-    return 'down';
+  } catch (error) {
+    return isPoolBusy(error) || poolIsFull(sequelize) ? 'busy' : 'down';
   } finally {
     clearTimeout(timer);
   }

@@ -34,3 +34,11 @@ export const unprocessable = (message: string, details?: ApiErrorDetail[]) => ne
 /** 503: PostgreSQL cannot be reached. */
 export const databaseUnavailable = () =>
   new HttpError(503, 'database_unavailable', 'The database is not reachable right now; nothing was changed. Try again shortly.');
+/** Seconds a client is asked to wait (`Retry-After`) when the server is busy. */
+export const BUSY_RETRY_AFTER_S = 5;
+/**
+ * 503: the database is up but no connection came free in time: every connection is in use, or the
+ * server was too busy computing to hand one out. Not an outage, so said apart from one.
+ */
+export const serverBusy = () =>
+  new HttpError(503, 'server_busy', `The server is busy: no database connection came free in time. Nothing was changed; try again in ${BUSY_RETRY_AFTER_S} seconds.`);

@@ -8,8 +8,8 @@ import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { NextFunction, Request, Response, RequestHandler } from 'express';
 import type { Role } from '../../shared/api/auth.js';
 import { User } from '../models/index.js';
-import { databaseUnavailable, forbidden, unauthorized } from '../errors.js';
-import { isDatabaseUnavailable } from '../db.js';
+import { forbidden, unauthorized } from '../errors.js';
+import { unavailableError } from '../db.js';
 
 declare module 'express-serve-static-core' {
   interface Request {
@@ -41,7 +41,7 @@ export function createPassport(secret: string): PassportInstance {
 export function requireSignIn(passport: PassportInstance): RequestHandler {
   return (req: Request, res: Response, next: NextFunction) => {
     passport.authenticate('jwt', { session: false }, (err: unknown, user: User | false, info: { name?: string; message?: string } | undefined) => {
-      if (err) return next(isDatabaseUnavailable(err) ? databaseUnavailable() : err);
+      if (err) return next(unavailableError(err) ?? err);
       if (!user) {
         if (info?.name === 'TokenExpiredError') return next(unauthorized('Your sign-in has expired: sign in again.'));
         if (info?.message === 'This account is deactivated.') return next(unauthorized('This account is deactivated.'));

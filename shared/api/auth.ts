@@ -43,8 +43,8 @@ export interface UpdateUserRequest {
   name?: string;
 }
 
-/** `GET /api/health` answer. */
+/** `GET /api/health` answer: `busy` when PostgreSQL answers but every connection is in use. */
 export interface HealthResponse {
-  status: 'ok' | 'degraded';
-  database: 'up' | 'down';
+  status: 'ok' | 'degraded' | 'busy';
+  database: 'up' | 'down' | 'busy';
 }
