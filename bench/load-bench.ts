@@ -9,11 +9,16 @@
  * in the same run: `GET /api/health` under the same load, the floor of the HTTP stack and one
  * database round trip; and single-part solves alone beside the mix. Reports the one-at-a-time
  * service time of each body, then requests/s, p50/p90/p99 latency, errors, timeouts and non-2xx.
+ * Both ways solves can run, side by side on the same database: on worker threads (the default,
+ * one per core) and on the event loop (`SOLVE_THREADS=0`); beside each mix run, a few clients
+ * ask `GET /api/health`, whose latency shows whether solves hold up the other requests.
  * A report, never a test: nothing here passes or fails.
  *
- * Run: `npx tsx bench/load-bench.ts` (or `npm run bench`); `LOAD_BENCH_SECONDS` sets the solve run's length.
+ * Run: `npx tsx bench/load-bench.ts` (or `npm run bench`); `LOAD_BENCH_SECONDS` sets the solve run's length,
+ * `LOAD_BENCH_THREADS` the threaded server's solve threads (default: one per core).
  */
 import { spawn, type ChildProcess } from 'node:child_process';
+import { availableParallelism } from 'node:os';
 import { rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -34,6 +39,10 @@ const CONNECTIONS = 50;
 const SOLVE_SECONDS = Number(process.env.LOAD_BENCH_SECONDS ?? 20);
 const HEALTH_SECONDS = 10;
 const WARMUP_SECONDS = 3;
+/** Health clients beside the mix, to see whether solves hold up other requests. */
+const HEALTH_BESIDE_CONNECTIONS = 5;
+/** The server's default solve threads (server/config.ts): one per core. */
+const DEFAULT_THREADS = Number(process.env.LOAD_BENCH_THREADS ?? Math.max(1, availableParallelism()));
 const PASSWORD = 'load-bench-password-1';
 const JWT_SECRET = 'load-bench-secret-0123456789-abcdefghijklmnopqrstuvwxyz';
 
@@ -149,11 +158,86 @@ function line(label: string, r: AutocannonResult): string {
   );
 }
 
+/** A server process (server/main.ts) on `databaseUrl` with `solveThreads` solve threads. */
+async function startServerProcess(databaseUrl: string, solveThreads: number): Promise<{ url: string; stop(): Promise<void> }> {
+  const port = await findFreePort(4391);
+  const url = `http://127.0.0.1:${port}`;
+  const server = spawn(join(ROOT, 'node_modules', '.bin', 'tsx'), [join(ROOT, 'server', 'main.ts')], {
+    cwd: ROOT,
+    env: {
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      JWT_SECRET,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      LOG_LEVEL: 'warn',
+      LOGIN_RATE_LIMIT: '100',
+      NODE_ENV: 'production',
+      SOLVE_THREADS: String(solveThreads),
+    },
+    stdio: ['ignore', 'inherit', 'inherit'],
+  });
+  const stop = async () => {
+    if (server.exitCode !== null) return;
+    const exited = new Promise((done) => server.once('exit', done));
+    server.kill('SIGTERM');
+    await exited;
+  };
+  try {
+    await waitForHealth(url, server);
+  } catch (error) {
+    await stop();
+    throw error;
+  }
+  return { url, stop };
+}
+
+/** What one server configuration gave. */
+interface ConfigurationRun {
+  label: string;
+  single: number[];
+  combined: number[];
+  singles: AutocannonResult;
+  mix: AutocannonResult;
+  /** `GET /api/health` from a few more clients while the mix runs. */
+  healthDuringMix: AutocannonResult;
+}
+
+/** Service times, singles, then the mix with health requests beside it, on one server. */
+async function runConfiguration(label: string, url: string, bodies: object[]): Promise<ConfigurationRun> {
+  const designer = await signIn(url, 'designer@bench.example');
+  const headers = { Authorization: `Bearer ${designer}`, 'Content-Type': 'application/json' };
+  // Every body must solve, or the run would measure refusals; one at a time, this is also the
+  // service time of each (what one request costs with no queue in front of it).
+  const single: number[] = [];
+  const combined: number[] = [];
+  for (const body of bodies) {
+    const start = performance.now();
+    const res = await fetch(`${url}/api/matches/solve`, { method: 'POST', headers, body: JSON.stringify(body) });
+    if (res.status !== 200) throw new Error(`solve of ${JSON.stringify(body)} answered ${res.status}: ${(await res.text()).slice(0, 300)}`);
+    await res.arrayBuffer();
+    ((body as { combinations?: boolean }).combinations ? combined : single).push(performance.now() - start);
+  }
+  const asRequests = (list: object[]) => list.map((body) => ({ method: 'POST', path: '/api/matches/solve', headers, body: JSON.stringify(body) }));
+  const requests = asRequests(bodies);
+  const singlesOnly = asRequests(bodies.filter((body) => !(body as { combinations?: boolean }).combinations));
+  await autocannon({ url, connections: CONNECTIONS, duration: WARMUP_SECONDS, requests: singlesOnly, timeout: 60 });
+  await drain(url);
+  const singles = await autocannon({ url, connections: CONNECTIONS, duration: SOLVE_SECONDS, requests: singlesOnly, timeout: 60 });
+  await drain(url);
+  const [mix, healthDuringMix] = await Promise.all([
+    autocannon({ url, connections: CONNECTIONS, duration: SOLVE_SECONDS, requests, timeout: 60 }),
+    autocannon({ url: `${url}/api/health`, connections: HEALTH_BESIDE_CONNECTIONS, duration: SOLVE_SECONDS, timeout: 60 }),
+  ]);
+  await drain(url);
+  return { label, single, combined, singles, mix, healthDuringMix };
+}
+
 async function main(): Promise<void> {
   const baseDir = join(ROOT, 'tmp', 'load-bench-postgres');
   rmSync(baseDir, { recursive: true, force: true });
   const cluster = new PgCluster({ baseDir, port: await findFreePort(54369), fast: true });
-  let server: ChildProcess | undefined;
+  const servers: { stop(): Promise<void> }[] = [];
   try {
     cluster.ensureStarted();
     cluster.ensureDatabase('load_bench');
@@ -165,71 +249,53 @@ async function main(): Promise<void> {
     await createUser(sequelize, null, { email: 'designer@bench.example', name: 'Bench designer', role: 'designer', password: PASSWORD });
     await sequelize.close();
 
-    const port = await findFreePort(4391);
-    const url = `http://127.0.0.1:${port}`;
-    server = spawn(join(ROOT, 'node_modules', '.bin', 'tsx'), [join(ROOT, 'server', 'main.ts')], {
-      cwd: ROOT,
-      env: { ...process.env, DATABASE_URL: databaseUrl, JWT_SECRET, PORT: String(port), HOST: '127.0.0.1', LOG_LEVEL: 'warn', LOGIN_RATE_LIMIT: '100', NODE_ENV: 'production' },
-      stdio: ['ignore', 'inherit', 'inherit'],
-    });
-    await waitForHealth(url, server);
-
-    const stores = await signIn(url, 'stores@bench.example');
+    const threaded = await startServerProcess(databaseUrl, DEFAULT_THREADS);
+    servers.push(threaded);
+    const stores = await signIn(threaded.url, 'stores@bench.example');
     const csv = stockCsv(PARTS);
     const form = new FormData();
     form.append('file', new Blob([csv], { type: 'text/csv' }), 'load-bench.csv');
-    const imported = await fetch(`${url}/api/stock/imports`, { method: 'POST', headers: { Authorization: `Bearer ${stores}` }, body: form });
+    const imported = await fetch(`${threaded.url}/api/stock/imports`, { method: 'POST', headers: { Authorization: `Bearer ${stores}` }, body: form });
     const report = (await imported.json()) as { created?: number };
     if (imported.status !== 200) throw new Error(`the import answered ${imported.status}: ${JSON.stringify(report).slice(0, 400)}`);
 
-    const designer = await signIn(url, 'designer@bench.example');
-    const headers = { Authorization: `Bearer ${designer}`, 'Content-Type': 'application/json' };
     const bodies = solveBodies(200);
-    // Every body must solve, or the run would measure refusals; one at a time, this is also the
-    // service time of each (what one request costs with no queue in front of it).
-    const single: number[] = [];
-    const combined: number[] = [];
-    for (const body of bodies) {
-      const start = performance.now();
-      const res = await fetch(`${url}/api/matches/solve`, { method: 'POST', headers, body: JSON.stringify(body) });
-      if (res.status !== 200) throw new Error(`solve of ${JSON.stringify(body)} answered ${res.status}: ${(await res.text()).slice(0, 300)}`);
-      await res.arrayBuffer();
-      ((body as { combinations?: boolean }).combinations ? combined : single).push(performance.now() - start);
-    }
-    const combos = combined.length;
-    const asRequests = (list: object[]) => list.map((body) => ({ method: 'POST', path: '/api/matches/solve', headers, body: JSON.stringify(body) }));
-    const requests = asRequests(bodies);
-    const singlesOnly = asRequests(bodies.filter((body) => !(body as { combinations?: boolean }).combinations));
-
+    const combos = bodies.filter((body) => (body as { combinations?: boolean }).combinations).length;
     console.log(
       `API under load: ${CONNECTIONS} connections on loopback, ${report.created} parts imported over HTTP, ` +
         `${bodies.length} solve bodies cycled (${combos} with combinations), server in its own process, PostgreSQL on 127.0.0.1:${cluster.port}`,
     );
-    const health = await autocannon({ url: `${url}/api/health`, connections: CONNECTIONS, duration: HEALTH_SECONDS });
-    await drain(url);
-    await autocannon({ url, connections: CONNECTIONS, duration: WARMUP_SECONDS, requests: singlesOnly, timeout: 60 });
-    await drain(url);
-    const singles = await autocannon({ url, connections: CONNECTIONS, duration: SOLVE_SECONDS, requests: singlesOnly, timeout: 60 });
-    await drain(url);
-    const solve = await autocannon({ url, connections: CONNECTIONS, duration: SOLVE_SECONDS, requests, timeout: 60 });
-    await drain(url);
+    const health = await autocannon({ url: `${threaded.url}/api/health`, connections: CONNECTIONS, duration: HEALTH_SECONDS });
+    await drain(threaded.url);
+    const runs = [await runConfiguration(`${DEFAULT_THREADS} solve threads (default)`, threaded.url, bodies)];
+    await threaded.stop();
+    const onLoop = await startServerProcess(databaseUrl, 0);
+    servers.push(onLoop);
+    runs.push(await runConfiguration('solves on the event loop (SOLVE_THREADS=0)', onLoop.url, bodies));
+    await onLoop.stop();
+
     const quantile = (values: number[], q: number) => [...values].sort((a, b) => a - b)[Math.min(values.length - 1, Math.floor(q * values.length))];
-    console.log(
-      `  one at a time (service time): singles median ${formatMs(quantile(single, 0.5))} (p90 ${formatMs(quantile(single, 0.9))}, ${single.length} bodies), ` +
-        `with combinations median ${formatMs(quantile(combined, 0.5))} (p90 ${formatMs(quantile(combined, 0.9))}, ${combined.length} bodies)`,
-    );
-    console.log(line(`GET /api/health, ${HEALTH_SECONDS} s`, health));
-    console.log(line(`solve, single parts only, ${SOLVE_SECONDS} s`, singles));
-    console.log(line(`solve, mix (${Math.round((100 * combos) / bodies.length)} % combinations), ${SOLVE_SECONDS} s`, solve));
     const rate = (r: AutocannonResult) => r.requests.total / r.duration;
-    const codes = (r: AutocannonResult) => JSON.stringify(Object.fromEntries(Object.entries(r.statusCodeStats).map(([code, s]) => [code, s.count])));
-    console.log(`  health floor / singles: ${(rate(health) / rate(singles)).toFixed(1)}x; singles / mix: ${(rate(singles) / rate(solve)).toFixed(1)}x; status codes: singles ${codes(singles)}, mix ${codes(solve)}`);
-  } finally {
-    if (server && server.exitCode === null) {
-      const exited = new Promise((done) => server!.once('exit', done));
-      server.kill('SIGTERM');
-      await exited;
+    const codes = (r: AutocannonResult) => JSON.stringify(Object.fromEntries(Object.entries(r.statusCodeStats).map(([code, c]) => [code, c.count])));
+    console.log(line(`GET /api/health alone, ${HEALTH_SECONDS} s`, health));
+    for (const run of runs) {
+      console.log(`  ${run.label}:`);
+      console.log(
+        `    one at a time (service time): singles median ${formatMs(quantile(run.single, 0.5))} (p90 ${formatMs(quantile(run.single, 0.9))}, ${run.single.length} bodies), ` +
+          `with combinations median ${formatMs(quantile(run.combined, 0.5))} (p90 ${formatMs(quantile(run.combined, 0.9))}, ${run.combined.length} bodies)`,
+      );
+      console.log(line(`  solve, single parts only, ${SOLVE_SECONDS} s`, run.singles));
+      console.log(line(`  solve, mix (${Math.round((100 * combos) / bodies.length)} % combinations), ${SOLVE_SECONDS} s`, run.mix));
+      console.log(line(`  + GET /api/health beside it (${HEALTH_BESIDE_CONNECTIONS} clients)`, run.healthDuringMix));
+      console.log(`    status codes: singles ${codes(run.singles)}, mix ${codes(run.mix)}, health beside ${codes(run.healthDuringMix)}`);
     }
+    const [threads, loop] = runs;
+    console.log(
+      `  threads / event loop: singles ${(rate(threads.singles) / rate(loop.singles)).toFixed(2)}x req/s; mix ${(rate(threads.mix) / rate(loop.mix)).toFixed(2)}x req/s; ` +
+        `health beside the mix p99 ${formatMs(threads.healthDuringMix.latency.p99)} against ${formatMs(loop.healthDuringMix.latency.p99)}`,
+    );
+  } finally {
+    for (const server of servers) await server.stop();
     cluster.stop();
     rmSync(baseDir, { recursive: true, force: true });
   }

@@ -13,6 +13,7 @@ import type { AppContext } from './app-context.js';
 import { createPassport, requireSignIn } from './auth/passport.js';
 import { BUSY_RETRY_AFTER_S, HttpError } from './errors.js';
 import { unavailableError } from './db.js';
+import { setSolveThreads } from './services/matches/solve-pool.js';
 import { authRouter } from './routes/auth/auth-router.js';
 import { usersRouter } from './routes/users/users-router.js';
 import { healthRouter } from './routes/health/health-router.js';
@@ -29,6 +30,8 @@ import { settingsRouter } from './routes/settings/settings-router.js';
 /** Builds the app on an open (models initialised, migrated) `sequelize`. */
 export function createApp(config: ServerConfig, sequelize: Sequelize, logger: Logger): express.Express {
   const passport = createPassport(config.jwtSecret);
+  // One pool of solve threads per process; the configuration sizes it.
+  setSolveThreads(config.solveThreads);
   const ctx: AppContext = { config, sequelize, logger, requireSignIn: requireSignIn(passport) };
 
   const app = express();

@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { resolve } from 'node:path';
 /**
  * Server configuration, read once from the environment. Every variable has a default for the
@@ -28,6 +29,8 @@ export interface ServerConfig {
   publicUrl: string;
   /** How long an e-mailed set-password link works, by purpose, in milliseconds. */
   accountLinks: { invitationTtlMs: number; passwordResetTtlMs: number };
+  /** Worker threads that solve matches (one per core by default); 0 solves on the event loop. */
+  solveThreads: number;
 }
 
 /** Reads the configuration from `env` (defaults: the embedded mode of `npm start`). */
@@ -61,6 +64,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
       invitationTtlMs: intVar(env, 'INVITATION_TTL_HOURS', 7 * 24) * 3_600_000,
       passwordResetTtlMs: intVar(env, 'PASSWORD_RESET_TTL_MINUTES', 60) * 60_000,
     },
+    solveThreads: intVar(env, 'SOLVE_THREADS', Math.max(1, availableParallelism())),
   };
 }
 

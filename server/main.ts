@@ -10,6 +10,7 @@ import { openDatabase } from './db.js';
 import { initModels } from './models/index.js';
 import { migrate } from './migrations/index.js';
 import { createApp } from './app.js';
+import { closeSolvePool } from './services/matches/solve-pool.js';
 
 /** A running server and how to stop it. */
 export interface RunningServer {
@@ -42,6 +43,7 @@ export async function startServer(config: ServerConfig = loadConfig()): Promise<
     async close() {
       await new Promise<void>((resolve) => server.close(() => resolve()));
       server.closeAllConnections();
+      await closeSolvePool();
       await sequelize.close();
     },
   };

@@ -3,8 +3,9 @@
  * one query and grouped by electrical model (shared/snapping/stock-index.ts). Parts whose available
  * quantity does not cover the build are read too: the snapper leaves them out and says how many.
  *
- * Reading 10k parts and indexing them costs more than most solves, so the index is kept per
- * location and used again while the stock is unchanged. "Unchanged" is asked of the database in the
+ * Reading 10k parts and indexing them costs more than most solves, so the parts are kept per
+ * location and used again while the stock is unchanged, and each solve thread keeps its index of
+ * them under the same fingerprint (solve-worker.ts). "Unchanged" is asked of the database in the
  * caller's own transaction, by a fingerprint of the very rows the index holds: their count and the
  * sum of a 64-bit hash of each whole row (every column, `reserved` and `updated_at` included). Any
  * insert, update or delete of one of those rows changes it, whatever order transactions commit in
@@ -13,7 +14,6 @@
  * is one scan without sending rows, a few milliseconds for 10k parts (bench/load-bench.ts).
  */
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { buildStockIndex, type StockIndex } from '../../../shared/snapping/stock-index.js';
 import type { SnapPart } from '../../../shared/snapping/snap-part.js';
 import { PART_ROW_COLUMNS, presentPart, type PartRow } from '../stock/present-part.js';
 
@@ -22,7 +22,6 @@ export const STOCK_INDEX_CACHE_ENTRIES = 16;
 
 interface CachedStock {
   fingerprint: string;
-  index: StockIndex;
   parts: SnapPart[];
 }
 
@@ -42,12 +41,15 @@ async function stockFingerprint(sequelize: Sequelize, location: string | null, t
   return `${row?.n ?? '0'}:${row?.h ?? '0'}`;
 }
 
-/** The stock index for a solve, and the parts it holds (the same objects while the stock is unchanged: read only). */
-export async function loadStockIndex(
+/**
+ * The parts a solve is snapped to (the same objects while the stock is unchanged: read only), and
+ * the location key and fingerprint they are kept under (solve threads key their indexes so).
+ */
+export async function loadSolveStock(
   sequelize: Sequelize,
   options: { location: string | null },
   transaction?: Transaction,
-): Promise<{ index: StockIndex; parts: SnapPart[] }> {
+): Promise<{ parts: SnapPart[]; key: string; fingerprint: string }> {
   let cache = caches.get(sequelize);
   if (!cache) {
     cache = new Map();
@@ -61,7 +63,7 @@ export async function loadStockIndex(
     // Most recently used last.
     cache.delete(key);
     cache.set(key, cached);
-    return { index: cached.index, parts: cached.parts };
+    return { parts: cached.parts, key, fingerprint: cached.fingerprint };
   }
   stockIndexCacheStats.misses += 1;
   // Each row comes with its hash, so the index is kept under the fingerprint of exactly the rows it
@@ -73,9 +75,9 @@ export async function loadStockIndex(
   let sum = 0n;
   for (const row of rows) sum += BigInt(row.row_hash);
   const parts: SnapPart[] = rows.map(presentPart);
-  const index = buildStockIndex(parts);
+  const rowsFingerprint = `${rows.length}:${rows.length === 0 ? '0' : sum.toString()}`;
   cache.delete(key);
-  cache.set(key, { fingerprint: `${rows.length}:${rows.length === 0 ? '0' : sum.toString()}`, index, parts });
+  cache.set(key, { fingerprint: rowsFingerprint, parts });
   while (cache.size > STOCK_INDEX_CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
-  return { index, parts };
+  return { parts, key, fingerprint: rowsFingerprint };
 }

@@ -1,15 +1,16 @@
 /**
  * `POST /api/matches/solve` (api.md "Matches"): read the request, the settings and the stock, and let
- * the snapper fill the fits (shared/snapping/snap-match.ts). Saves nothing.
+ * the snapper fill the fits (shared/snapping/snap-match.ts) on a solve thread. Saves nothing.
  */
 import type { Sequelize, Transaction } from 'sequelize';
 import { type EngineInputProblem, isEngineInputError } from '../../../shared/engine/engine-input-error.js';
 import { parseSolveRequest, type SolveInput } from '../../../shared/engine/solve-request.js';
-import { snapMatch, type SnappedSolveResponse, type SnapSettings } from '../../../shared/snapping/snap-match.js';
+import type { SnappedSolveResponse, SnapSettings } from '../../../shared/snapping/snap-match.js';
 import type { SnapPart } from '../../../shared/snapping/snap-part.js';
 import { badRequest } from '../../errors.js';
 import { readSettings } from '../settings/read-settings.js';
-import { loadStockIndex } from './load-stock-index.js';
+import { loadSolveStock } from './load-stock-index.js';
+import { snapOnThread } from './solve-pool.js';
 
 /** A solved request with everything a save needs. */
 export interface SolvedMatch {
@@ -51,10 +52,11 @@ export async function solveMatch(sequelize: Sequelize, body: unknown, transactio
     defaultObjective: org.defaultObjective,
     lossBudgetDb: org.lossBudgetDb,
   };
-  const { index, parts } = await loadStockIndex(sequelize, { location: input.location }, transaction);
+  const { parts, key, fingerprint } = await loadSolveStock(sequelize, { location: input.location }, transaction);
   let response: SnappedSolveResponse;
   try {
-    response = snapMatch(input, index, settings, { objectiveGiven, location: input.location });
+    // On a solve thread (solve-pool.ts), so a long snap holds up no other request.
+    response = await snapOnThread(input, settings, { objectiveGiven, location: input.location }, { key, fingerprint, parts });
   } catch (error) {
     if (isEngineInputError(error)) throw badRequest(`The solve request is not valid: ${error.message}`, error.details.map(detailOf));
     throw error;
