@@ -4,7 +4,10 @@
  * (sign-ins, health, stock pages) and let queued database requests time out. The thread runs
  * solve-worker.ts; TypeScript is loaded there as in the main thread, through tsx.
  */
+import { createRequire } from 'node:module';
 import { availableParallelism } from 'node:os';
+import { dirname, join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { Piscina } from 'piscina';
 import type { SolveInput } from '../../../shared/engine/solve-request.js';
 import { EngineInputError } from '../../../shared/engine/engine-input-error.js';
@@ -31,12 +34,22 @@ export function solveThreads(): number {
   return threads;
 }
 
+/** The file URL of tsx's loader (its package's main export), or its bare name when that cannot be told. */
+function tsxLoader(): string {
+  try {
+    return pathToFileURL(join(dirname(createRequire(import.meta.url).resolve('tsx/package.json')), 'dist', 'loader.mjs')).href;
+  } catch {
+    return 'tsx';
+  }
+}
+
 function solvePool(): Piscina<SolveTask, SolveOutcome> {
   if (!pool) {
     const filename = new URL(`./solve-worker${import.meta.url.endsWith('.ts') ? '.ts' : '.js'}`, import.meta.url).href;
     pool = new Piscina({
       filename,
-      execArgv: filename.endsWith('.ts') ? ['--import', 'tsx'] : [],
+      // tsx by its own file, so the thread finds it whatever the working directory.
+      execArgv: filename.endsWith('.ts') ? ['--import', tsxLoader()] : [],
       minThreads: 0,
       maxThreads: threads,
       // A thread idle this long ends (it keeps its stock indexes until then).
