@@ -210,6 +210,11 @@ describe('srf, q, q_freq and esr', () => {
     await expectProblem({ q: '40', q_freq: '100mhz' }, 'q_freq', /ambiguous/);
     await expectProblem({ esr: '0' }, 'esr', /greater than zero/);
     await expectProblem({ esr: '0.3V' }, 'esr', /voltage, not a resistance/);
+    // Absurdly small values (handbook quality.md, bad input): refused with the smallest accepted.
+    await expectProblem({ esr: '1e-300' }, 'esr', /below .*the smallest resistance accepted/);
+    await expectProblem({ q: '1e-300', q_freq: '100MHz' }, 'q', /below 0.1/);
+    await expectProblem({ voltage_rating: '1e-300V' }, 'voltage_rating', /below .*the smallest voltage accepted/);
+    await expectProblem({ kind: 'L', value: '12n', tolerance: '5%', current_rating: '1e-300A' }, 'current_rating', /below .*the smallest current accepted/);
   });
 });
 

@@ -51,18 +51,25 @@ function memoized<T>(read: (cell: string) => T): (cell: string) => T {
 /** What each kind's value is. */
 export const QUANTITY_OF_KIND: Readonly<Record<PartKind, 'capacitance' | 'inductance'>> = { capacitor: 'capacitance', inductor: 'inductance' };
 
-/** Plausible ranges, in SI units: anything outside is a typing or unit mistake, not a part. */
+/**
+ * Plausible ranges, in SI units: anything outside is a typing or unit mistake, not a part. The
+ * lower ends of ESR and ratings are our judgement from data sheets (from memory, not one source):
+ * chip parts have ESRs of milliohms and more and ratings of volts and milliamps, so 10 uOhm,
+ * 0.1 V and 0.1 mA leave wide room and still catch a value off by a prefix or two, or 1e-300.
+ */
 const RANGES = {
   capacitance: { min: 1e-14, max: 0.1 },
   inductance: { min: 1e-11, max: 1 },
   frequency: { min: 1e3, max: 1e12 },
-  resistance: { min: 0, max: 1e3 },
-  voltage: { min: 0, max: 1e5 },
-  current: { min: 0, max: 1e3 },
+  resistance: { min: 1e-5, max: 1e3 },
+  voltage: { min: 0.1, max: 1e5 },
+  current: { min: 1e-4, max: 1e3 },
 } as const;
 
 /** Largest Q accepted (chip parts reach a few hundred; 1e5 leaves room for any real one). */
 const MAX_Q = 1e5;
+/** Smallest Q accepted: below 0.1 a part is a resistor, not a reactance (our judgement). */
+const MIN_Q = 0.1;
 /** Largest quantity on hand accepted (fits a PostgreSQL INTEGER with room). */
 const MAX_QUANTITY = 1_000_000_000;
 /** DECIMAL(12,4): 8 integer and 4 fraction digits. */
@@ -211,6 +218,7 @@ export function readQ(cell: string): number {
   const q = Number(text);
   if (!(q > 0)) throw new CellProblem(`q ${quote(cell)} must be greater than zero; leave it blank when unknown`);
   if (q > MAX_Q) throw new CellProblem(`q ${quote(cell)} is above ${MAX_Q}, more than any real part`);
+  if (q < MIN_Q) throw new CellProblem(`q ${quote(cell)} is below ${MIN_Q}: such a part is a resistor, not a capacitor or inductor; check the number`);
   return q;
 }
 
