@@ -31,6 +31,8 @@ export class StockPage {
   protected readonly tabIndex = signal(0);
   /** Bumped after each applied import, so the list and the history fetch again. */
   protected readonly revision = signal(0);
+  /** Bumped after each import the history keeps (a refused one too), so the history fetches again. */
+  protected readonly historyRevision = signal(0);
   /** The import whose changes the history shows. */
   protected readonly selectedImportId = signal<number | null>(null);
 
@@ -40,6 +42,10 @@ export class StockPage {
   protected noteImport(report: StockImportReport): void {
     this.revision.update((n) => n + 1);
     if (report.importId !== null) this.selectedImportId.set(report.importId);
+  }
+
+  protected noteRecorded(): void {
+    this.historyRevision.update((n) => n + 1);
   }
 
   protected showChanges(importId: number): void {

@@ -57,7 +57,9 @@ describe('StockUpload', () => {
 
   it('sends the file with mode, dry run and skip-invalid, shows progress, then the rejected rows', async () => {
     const applied = vi.fn();
+    const recorded = vi.fn();
     fixture.componentRef.instance.imported.subscribe(applied);
+    fixture.componentRef.instance.recorded.subscribe(recorded);
     choose(new File(['part_number,kind,value,tolerance,quantity\n'], 'week-48.csv', { type: 'text/csv' }));
     await fixture.whenStable();
     expect(fixture.nativeElement.querySelector('[data-testid="stock-upload-file"]').textContent).toContain('week-48.csv');
@@ -85,6 +87,22 @@ describe('StockUpload', () => {
     const rows = await Promise.all((await table.getRows()).map((row) => row.getCellTextByColumnName()));
     expect(rows).toEqual([{ line: '4', column: 'quantity', value: 'lots', message: REFUSED.rejected[0].message }]);
     expect(applied).not.toHaveBeenCalled();
+    // The history keeps the refused attempt, so the page is told to show it there.
+    expect(recorded).toHaveBeenCalledWith(expect.objectContaining(REFUSED));
+  });
+
+  it('does not tell the page of a dry run, which the history does not keep', async () => {
+    const applied = vi.fn();
+    const recorded = vi.fn();
+    fixture.componentRef.instance.imported.subscribe(applied);
+    fixture.componentRef.instance.recorded.subscribe(recorded);
+    choose(new File(['x'], 'try.csv'));
+    await fixture.whenStable();
+    await (await submit()).click();
+    backend.expectOne('/api/stock/imports').flush({ ...REFUSED, applied: false, dryRun: true, rejected: [], rejectedRows: 0, importId: null });
+    await fixture.whenStable();
+    expect(applied).not.toHaveBeenCalled();
+    expect(recorded).not.toHaveBeenCalled();
   });
 
   it('reports an applied import, tells the page, and offers to show the changes', async () => {

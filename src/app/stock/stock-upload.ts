@@ -31,6 +31,8 @@ function isImportReport(body: unknown): body is StockImportReport {
 export class StockUpload {
   /** Emits each report of an upload that changed the stock. */
   readonly imported = output<StockImportReport>();
+  /** Emits each report the import history keeps (applied or refused; not a dry run). */
+  readonly recorded = output<StockImportReport>();
   /** Emits an import's id when the person asks to see what it changed. */
   readonly showChanges = output<number>();
 
@@ -112,6 +114,7 @@ export class StockUpload {
     this.report.set(report);
     this.uploading.set(false);
     if (report.applied) this.imported.emit(report);
+    if (report.importId !== null) this.recorded.emit(report);
   }
 
   private takeFile(file: File | null): void {
