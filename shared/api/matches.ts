@@ -25,6 +25,13 @@ export interface MeasuredPortInput {
   text: string;
 }
 
+/** A measured file as the saved-match list names it: its name and size; `GET /api/matches/:id` has its text. */
+export interface MeasuredPortReference {
+  fileName?: string | null;
+  /** Characters of the file's text. */
+  textChars: number;
+}
+
 /** `POST /api/matches/solve` body. */
 export interface SolveRequest {
   /** Required unless `sourceTouchstone` is given. */

@@ -4,7 +4,7 @@
  * below are this server's, and they keep the field names the match workspace reads (`request`,
  * `chosen`, `fit`, `sweep.frequenciesHz/idealTpg/fitTpg`, `createdAt`, `createdBy`).
  */
-import type { MatchNetwork, NetworkPlacement, Objective, SolveRequest } from '../api/matches.js';
+import type { MatchNetwork, MeasuredPortReference, NetworkPlacement, Objective, SolveRequest } from '../api/matches.js';
 import type { MatchSweep, MeasuredTrace, SmithPath } from './match-sweep.js';
 import type { SnappedFit } from './snapped-fit.js';
 import type { SnapPart } from './snap-part.js';
@@ -24,10 +24,19 @@ export interface SaveMatchRequest {
 }
 
 /** A saved match in the list (`GET /api/matches` items). */
+/**
+ * A saved request as the list shows it: as saved, but a measured port names its file without the
+ * text (which can be most of a megabyte; `GET /api/matches/:id` has it).
+ */
+export type SavedRequestSummary = Omit<SolveRequest, 'loadTouchstone' | 'sourceTouchstone'> & {
+  loadTouchstone?: MeasuredPortReference | null;
+  sourceTouchstone?: MeasuredPortReference | null;
+};
+
 export interface SavedMatchSummary {
   id: number;
   name: string;
-  request: SolveRequest;
+  request: SavedRequestSummary;
   chosen: ChosenFit;
   objective: Objective;
   /** ISO 8601. */
@@ -55,7 +64,9 @@ export interface StockChange {
 }
 
 /** `GET /api/matches/:id` (and `POST /api/matches`) answer. */
-export interface SavedMatchDetail extends SavedMatchSummary {
+export interface SavedMatchDetail extends Omit<SavedMatchSummary, 'request'> {
+  /** The request as saved, measured files whole. */
+  request: SolveRequest;
   /** The ideal network of the chosen placement and solution (its `fits` holds the chosen fit only). */
   network: MatchNetwork;
   /** The chosen fit with its losses, TPG, flags and yield, as computed when saved. */

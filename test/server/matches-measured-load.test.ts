@@ -120,6 +120,16 @@ describe('a saved match with a measured load', () => {
     expect(detail.sweep.fitTpg.every((g: number) => g > 0 && g <= 1)).toBe(true);
   });
 
+  it('lists the match with its file by name and size, not its text', async () => {
+    const list = await request(t.app).get('/api/matches').set('Authorization', `Bearer ${token}`);
+    expect(list.status).toBe(200);
+    const item = list.body.items.find((m: { id: number }) => m.id === id);
+    expect(item.request.loadTouchstone).toEqual({ fileName, textChars: text.length });
+    expect(item.frequencyHz).toBe(868e6);
+    // The whole list is far smaller than the one file it names.
+    expect(JSON.stringify(list.body).length).toBeLessThan(text.length / 4);
+  });
+
   it('shows the measured trace on the Smith chart: the file points of the sweep range', () => {
     const [trace] = detail.smith.measured;
     expect(trace.port).toBe('load');

@@ -5,9 +5,11 @@
  */
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { parseSolveRequest } from '../../../shared/engine/solve-request.js';
+import { parseValue } from '../../../shared/engine/value-parse.js';
 import { ladderOfParts } from '../../../shared/snapping/fit-report.js';
 import { matchSweep, measuredTraces, smithPath } from '../../../shared/snapping/match-sweep.js';
-import type { SavedMatchDetail, SavedMatchSummary, StockChange } from '../../../shared/snapping/saved-match.js';
+import type { SavedMatchDetail, SavedMatchSummary, SavedRequestSummary, StockChange } from '../../../shared/snapping/saved-match.js';
+import type { MeasuredPortInput, MeasuredPortReference, SolveRequest } from '../../../shared/api/matches.js';
 import type { SnapPart } from '../../../shared/snapping/snap-part.js';
 import type { SnappedFit } from '../../../shared/snapping/snapped-fit.js';
 import { idealLadder } from '../../../shared/engine/ladder.js';
@@ -26,17 +28,32 @@ export function fitLadderInput(fit: SnappedFit, parts: readonly SnapPart[]) {
   }));
 }
 
+/** A measured port of a saved request as the list names it (no text). */
+function portReference(port: MeasuredPortInput | null | undefined): MeasuredPortReference | null | undefined {
+  return port ? { fileName: port.fileName ?? null, textChars: port.text.length } : port;
+}
+
+/** The saved request as the list shows it: measured files by name and size. */
+function requestSummary(request: SolveRequest): SavedRequestSummary {
+  const { loadTouchstone, sourceTouchstone, ...rest } = request;
+  const summary: SavedRequestSummary = { ...rest };
+  if (loadTouchstone !== undefined) summary.loadTouchstone = portReference(loadTouchstone);
+  if (sourceTouchstone !== undefined) summary.sourceTouchstone = portReference(sourceTouchstone);
+  return summary;
+}
+
 /** The list entry of a match. */
 export function presentMatchSummary(match: Match, user: User | null): SavedMatchSummary {
   return {
     id: match.id,
     name: match.name,
-    request: match.request,
+    request: requestSummary(match.request),
     chosen: { placement: match.placement, solution: match.solution, rank: match.rank },
     objective: match.objective,
     createdAt: match.createdAt.toISOString(),
     createdBy: user ? { id: user.id, name: user.name, email: user.email } : null,
-    frequencyHz: parseSolveRequest(match.request).frequencyHz,
+    // The saved request was read whole when it was saved; f0 alone needs no measured file read again.
+    frequencyHz: parseValue(match.request.frequencyHz, 'frequency', { field: 'frequencyHz' }),
     partNumbers: match.fit.elements.flatMap((e) => e.parts.map((p) => `${p.partNumber} x${p.quantity}`)),
     totalDb: match.fit.loss.totalDb,
     worstCaseDb: match.fit.loss.worstCaseDb,
@@ -77,6 +94,7 @@ export async function presentMatchDetail(sequelize: Sequelize, match: Match, use
   );
   return {
     ...presentMatchSummary(match, user),
+    request: match.request,
     network: { ...match.network, fits: [match.fit] },
     fit: match.fit,
     settings: match.settings,

@@ -233,6 +233,7 @@ describe('MatchesPage', () => {
     const network = SOLVED.networks[0];
     const detail: SavedMatch = {
       ...SAVED_LIST[0],
+      request: { source: '50', load: '12-j35', frequencyHz: '868MHz' },
       network: { ...network, fits: [] },
       fit: { ...LOW_PASS_BEST, elements: LOW_PASS_BEST.elements.map((e) => ({ ...e, parts: e.parts.map((p) => ({ ...p, partId: 1, location: 'Shelf A', available: 4000, unitCost: '0.0120' })) })), yield: 0.974, yieldBudgetDb: 0.5, yieldSamples: 2000, objectiveDb: 0.61, stockCover: 4000, costPerBuild: '0.0240' },
       settings: { usableSrfFraction: 0.5, excludeAboveLimit: false, lossBudgetDb: 0.5 },
