@@ -255,7 +255,14 @@ describe('saving and reopening a match', () => {
     expect(bad.body.error.details.map((d: { field: string }) => d.field)).toEqual(expect.arrayContaining(['name', 'chosen.placement', 'chosen.solution', 'chosen.rank']));
     const badRequest = await as(designer, request(t.app).post('/api/matches')).send({ name: 'x', request: { ...REQUEST, load: 'oops' }, chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 } });
     expect(badRequest.status).toBe(400);
-    expect(badRequest.body.error.details[0].field).toBe('load');
+    // The field path as the body has it: the request sits under `request`, like `chosen.rank` above.
+    expect(badRequest.body.error.details[0].field).toBe('request.load');
+    // A key the request reader refuses by name reaches it as sent.
+    const polluted = await as(designer, request(t.app).post('/api/matches'))
+      .set('Content-Type', 'application/json')
+      .send(`{"name":"x","request":{"source":50,"load":"12-j35","frequencyHz":"868MHz","__proto__":{"x":1}},"chosen":{"placement":"shunt-at-source","solution":1,"rank":1}}`);
+    expect(polluted.status).toBe(400);
+    expect(polluted.body.error.details.map((d: { field: string }) => d.field)).toEqual(['request.__proto__']);
     const absent = await as(designer, request(t.app).post('/api/matches')).send({ name: 'x', request: REQUEST, chosen: { placement: 'shunt-at-load', solution: 1, rank: 1 } });
     expect(absent.status).toBe(409);
     const deep = await as(designer, request(t.app).post('/api/matches')).send({ name: 'x', request: REQUEST, chosen: { placement: 'shunt-at-source', solution: 1, rank: 40 } });

@@ -30,7 +30,10 @@ export function matchesRouter(ctx: AppContext): Router {
 
   router.post('/', requireRole('designer', 'admin'), async (req, res) => {
     const body = parseRequest(saveMatchSchema, req.body, 'saved match');
-    res.status(201).json(await saveMatch(ctx.sequelize, req.currentUser!.id, { ...body, request: body.request as unknown as SolveRequest }));
+    // The request as sent (zod's copy of a record drops keys such as `__proto__`, which the
+    // engine's reader refuses by name, as the solve route does).
+    const sent = (req.body as { request: unknown }).request;
+    res.status(201).json(await saveMatch(ctx.sequelize, req.currentUser!.id, { ...body, request: sent as SolveRequest }));
   });
 
   router.get('/:id', async (req, res) => {

@@ -5,7 +5,7 @@
  */
 import type { Sequelize } from 'sequelize';
 import type { SavedMatchDetail, SaveMatchRequest } from '../../../shared/snapping/saved-match.js';
-import { conflict } from '../../errors.js';
+import { HttpError, conflict } from '../../errors.js';
 import { Match, User } from '../../models/index.js';
 import { recordAudit } from '../audit.js';
 import { presentMatchDetail } from './present-match.js';
@@ -18,7 +18,18 @@ import { solveMatch } from './solve-match.js';
  */
 export async function saveMatch(sequelize: Sequelize, actorId: number, body: SaveMatchRequest): Promise<SavedMatchDetail> {
   return sequelize.transaction(async (transaction) => {
-    const solved = await solveMatch(sequelize, body.request, transaction);
+    const solved = await solveMatch(sequelize, body.request, transaction).catch((error: unknown) => {
+      // The request sits under `request` in this body: say so in every detail's field.
+      if (error instanceof HttpError && error.code === 'invalid_input' && error.details) {
+        throw new HttpError(
+          error.status,
+          error.code,
+          error.message,
+          error.details.map((d) => ('field' in d && typeof d.field === 'string' ? { ...d, field: `request.${d.field}` } : d)),
+        );
+      }
+      throw error;
+    });
     const { placement, solution, rank } = body.chosen;
     const network = solved.response.networks.find((n) => n.placement === placement && n.solution === solution);
     const where = [{ field: 'chosen', value: body.chosen, message: '' }];
