@@ -33,7 +33,11 @@ export interface CreateUserRequest {
   email: string;
   name: string;
   role: Role;
-  password: string;
+  /**
+   * A first password (10+ characters). Extension: leave it out to create the user without one;
+   * they cannot sign in until they set one from an invitation (`POST /api/users/:id/invitation`).
+   */
+  password?: string;
 }
 
 /** `PATCH /api/users/:id` body (admin only). */

@@ -1,7 +1,7 @@
 /// <reference lib="dom" />
 /**
- * An invitation in the real browser: the admin creates a user and presses Send invitation, the
- * e-mail arrives at the suite's fake SMTP server, the link opens the set-password page, the new
+ * An invitation in the real browser: the admin creates a user with no first password, which sends
+ * the invitation at once (an existing user gets one from the Send invitation button), the e-mail arrives at the suite's fake SMTP server, the link opens the set-password page, the new
  * password works for sign-in, the link then refuses a second use, and the Outbox shows the mail
  * with its token hidden.
  */
@@ -30,15 +30,16 @@ describe('an invitation link', () => {
     await page.getByTestId('nav-admin').click();
     await page.getByTestId('new-user-email').fill(email);
     await page.getByTestId('new-user-name').fill('Noor Halvorsen');
-    await page.getByTestId('new-user-password').fill('placeholder-first-password');
-    await page.getByTestId('new-user-submit').click();
-    const row = page.getByTestId(`user-row-${email}`);
-    await row.waitFor();
-
+    // No first password: the button says it invites, and pressing it creates and invites.
+    expect(await page.getByTestId('new-user-submit').textContent()).toContain('Create and invite');
+    const created = page.waitForResponse((r) => r.url().endsWith('/api/users') && r.request().method() === 'POST');
     const sent = page.waitForResponse((r) => r.url().endsWith('/invitation') && r.request().method() === 'POST');
-    await row.getByTestId('send-invitation').click();
+    await page.getByTestId('new-user-submit').click();
+    expect((await created).status()).toBe(201);
     expect((await sent).status()).toBe(201);
+    await page.getByTestId(`user-row-${email}`).waitFor();
     await page.getByText(`Invitation sent to ${email}`).waitFor();
+    await screenshot(page, 'admin-created-and-invited');
 
     const mail = await waitForMailTo(mailDir, email, { subject: 'invited' });
     const link = mail.text?.match(/http:\/\/\S+\/set-password\?token=\S+/)?.[0];

@@ -109,6 +109,31 @@ describe('invitation', () => {
     expect(used.after).toMatchObject({ purpose: 'invitation' });
   });
 
+  it('invites a user created without a password, who cannot sign in until they set one', async () => {
+    const created = await asAdmin(request(t.app).post('/api/users')).send({ email: 'chiara.moss@tarnwick.example', name: 'Chiara Moss', role: 'stores' });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const [stored] = await t.sequelize.query<{ password_hash: string | null }>('SELECT password_hash FROM users WHERE id = :id', {
+      replacements: { id: created.body.id },
+      type: QueryTypes.SELECT,
+    });
+    expect(stored.password_hash).toBeNull();
+    // No password: every sign-in gets the same 401 as a wrong password (no hint the account exists).
+    for (const password of ['', 'anything-at-all-1', TEST_PASSWORD]) {
+      const res = await signIn('chiara.moss@tarnwick.example', password);
+      expect(res.status).toBe(password === '' ? 400 : 401);
+    }
+    expect((await sendLink(created.body.id, 'invitation')).status).toBe(201);
+    const { token } = linkIn(lastMessageTo('chiara.moss@tarnwick.example'));
+    expect((await setPassword(token, 'shelf-count-2026')).status).toBe(200);
+    const signedIn = await signIn('chiara.moss@tarnwick.example', 'shelf-count-2026');
+    expect(signedIn.status).toBe(200);
+    expect(signedIn.body.user).toMatchObject({ email: 'chiara.moss@tarnwick.example', role: 'stores' });
+    // A short first password is still refused when one is given.
+    const short = await asAdmin(request(t.app).post('/api/users')).send({ email: 'x@tarnwick.example', name: 'X', role: 'stores', password: 'short' });
+    expect(short.status).toBe(400);
+    expect(short.body.error.details.map((d: { field: string }) => d.field)).toEqual(['password']);
+  });
+
   it('lets only one of two simultaneous uses of a link succeed', async () => {
     const invitee = await t.addUser('stores');
     await sendLink(invitee.id, 'invitation').expect(201);

@@ -13,7 +13,8 @@ const createSchema = z.object({
   email: z.email('e-mail must look like name@example.com').max(254),
   name: z.string().trim().min(1, 'name is required').max(120),
   role,
-  password: z.string().min(10, 'a first password needs at least 10 characters').max(1024),
+  // Optional: without one, the user sets their own from an invitation.
+  password: z.string().min(10, 'a first password needs at least 10 characters').max(1024).optional(),
 });
 const updateSchema = z
   .object({ role: role.optional(), active: z.boolean().optional(), name: z.string().trim().min(1).max(120).optional() })

@@ -14,9 +14,10 @@ export async function listUsers() {
   return users.map(presentUser);
 }
 
-/** Creates a user with a first password; 409 when the e-mail is taken. */
+/** Creates a user, with a first password or none (then they set one from an invitation); 409 when the e-mail is taken. */
 export async function createUser(sequelize: Sequelize, actorId: number | null, input: CreateUserRequest) {
-  const passwordHash = await hashPassword(input.password);
+  // No password: nobody can sign in as this user until they set one from an invitation link.
+  const passwordHash = input.password === undefined ? null : await hashPassword(input.password);
   try {
     return await sequelize.transaction(async (transaction) => {
       const user = await User.create(

@@ -50,6 +50,8 @@ export class AdminPage {
   protected readonly loadError = signal<string | null>(null);
   /** Ids of users with a change on its way. */
   protected readonly busyIds = signal<ReadonlySet<number>>(new Set());
+  /** Users created this moment to be invited (their invitation is on its way). */
+  private readonly invitedNow = new Set<number>();
   /** The signed-in admin's id: they may not demote or deactivate themselves here. */
   protected readonly ownId = computed(() => this.session.currentUser()?.id ?? null);
 
@@ -71,7 +73,15 @@ export class AdminPage {
 
   protected addCreatedUser(user: User): void {
     this.users.update((list) => sortByName([...list.filter((other) => other.id !== user.id), user]));
-    this.snackBar.open(`${user.name} can now sign in as ${user.role}.`, 'Close', { duration: NOTICE_MS });
+    // A user created to be invited cannot sign in yet; the invitation's own notice follows.
+    if (this.invitedNow.has(user.id)) this.snackBar.open(`${user.name} was added as ${user.role}; sending the invitation…`, 'Close', { duration: NOTICE_MS });
+    else this.snackBar.open(`${user.name} can now sign in as ${user.role}.`, 'Close', { duration: NOTICE_MS });
+  }
+
+  /** Invites a user just created without a password. */
+  protected inviteCreatedUser(user: User): void {
+    this.invitedNow.add(user.id);
+    void this.sendLink(user, 'invitation').finally(() => this.invitedNow.delete(user.id));
   }
 
   protected changeRole(user: User, role: Role): Promise<void> {

@@ -60,4 +60,35 @@ describe('NewUserForm', () => {
     });
     expect(created).not.toHaveBeenCalled();
   });
+
+  it('sends a first password when one is given, and asks for no invitation', async () => {
+    const invite = vi.fn();
+    fixture.componentRef.instance.inviteRequested.subscribe(invite);
+    await fill({ 'new-user-email': 'tech@tarnwick.example', 'new-user-name': 'Fen Oduya', 'new-user-password': 'long-enough-pass' });
+    expect(await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="new-user-submit"]' }))).getText()).toBe('Create user');
+    await submit();
+    const sent = backend.expectOne('/api/users');
+    expect(sent.request.body).toEqual({ email: 'tech@tarnwick.example', name: 'Fen Oduya', role: 'designer', password: 'long-enough-pass' });
+    sent.flush({ id: 5, email: 'tech@tarnwick.example', name: 'Fen Oduya', role: 'designer', active: true });
+    await fixture.whenStable();
+    expect(invite).not.toHaveBeenCalled();
+  });
+
+  it('creates a user without a password and asks for an invitation when the password is left empty', async () => {
+    const created = vi.fn();
+    const invite = vi.fn();
+    fixture.componentRef.instance.userCreated.subscribe(created);
+    fixture.componentRef.instance.inviteRequested.subscribe(invite);
+    await fill({ 'new-user-email': 'new@tarnwick.example', 'new-user-name': 'Ines Varga' });
+    expect(await (await loader.getHarness(MatButtonHarness.with({ selector: '[data-testid="new-user-submit"]' }))).getText()).toBe('Create and invite');
+    await submit();
+    const sent = backend.expectOne('/api/users');
+    // No password field at all: the server then keeps none.
+    expect(sent.request.body).toEqual({ email: 'new@tarnwick.example', name: 'Ines Varga', role: 'designer' });
+    const user = { id: 6, email: 'new@tarnwick.example', name: 'Ines Varga', role: 'designer', active: true };
+    sent.flush(user);
+    await fixture.whenStable();
+    expect(created).toHaveBeenCalledWith(user);
+    expect(invite).toHaveBeenCalledWith(user);
+  });
 });

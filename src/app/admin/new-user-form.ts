@@ -16,7 +16,7 @@ export const MIN_PASSWORD_LENGTH = 10;
 /** Form fields the server may name in `details[].field`. */
 type NewUserField = 'email' | 'name' | 'role' | 'password';
 
-/** The admin's form to create a user with a role and a first password. */
+/** The admin's form to create a user with a role, and either a first password or an e-mailed invitation. */
 @Component({
   selector: 'sm-new-user-form',
   templateUrl: './new-user-form.html',
@@ -27,6 +27,8 @@ type NewUserField = 'email' | 'name' | 'role' | 'password';
 export class NewUserForm {
   /** Emits each user the server has created. */
   readonly userCreated = output<User>();
+  /** Emits a user created without a first password, who is to be e-mailed an invitation. */
+  readonly inviteRequested = output<User>();
 
   private readonly directory = inject(UserDirectory);
   private readonly formDirective = viewChild.required(FormGroupDirective);
@@ -37,8 +39,15 @@ export class NewUserForm {
     email: ['', [Validators.required, Validators.email]],
     name: ['', [Validators.required, Validators.maxLength(120)]],
     role: ['designer' as Role, Validators.required],
-    password: ['', [Validators.required, Validators.minLength(MIN_PASSWORD_LENGTH)]],
+    // Optional: left empty, the user is invited by e-mail to choose their own.
+    password: ['', [Validators.minLength(MIN_PASSWORD_LENGTH)]],
   });
+  /** Whether the form will invite rather than set a first password. */
+  protected readonly invites = signal(true);
+
+  constructor() {
+    this.form.controls.password.valueChanges.subscribe((password) => this.invites.set(password === ''));
+  }
 
   /** Whether the create request is on its way. */
   protected readonly pending = signal(false);
@@ -57,9 +66,11 @@ export class NewUserForm {
     this.errorMessage.set(null);
     this.fieldProblems.set({});
     try {
-      const raw = this.form.getRawValue();
-      const user = await this.directory.createUser({ ...raw, email: raw.email.trim(), name: raw.name.trim() });
+      const { password, ...raw } = this.form.getRawValue();
+      const user = await this.directory.createUser({ ...raw, email: raw.email.trim(), name: raw.name.trim(), ...(password === '' ? {} : { password }) });
       this.formDirective().resetForm({ email: '', name: '', role: 'designer', password: '' });
+      // The invitation first, so the page knows of it when it hears of the new user.
+      if (password === '') this.inviteRequested.emit(user);
       this.userCreated.emit(user);
     } catch (error: unknown) {
       this.showFailure(error);
