@@ -14,6 +14,8 @@ export interface User {
   role: Role;
   /** Whether the user may sign in; a deactivated user's tokens stop working. */
   active: boolean;
+  /** Extension: whether the user has a password; false until an invited user chooses one. */
+  passwordSet: boolean;
 }
 
 /** `POST /api/auth/login` body. */

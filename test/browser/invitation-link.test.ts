@@ -39,6 +39,7 @@ describe('an invitation link', () => {
     expect((await sent).status()).toBe(201);
     await page.getByTestId(`user-row-${email}`).waitFor();
     await page.getByText(`Invitation sent to ${email}`).waitFor();
+    expect(await page.getByTestId(`user-status-${email}`).textContent()).toContain('Invited');
     await screenshot(page, 'admin-created-and-invited');
 
     const mail = await waitForMailTo(mailDir, email, { subject: 'invited' });

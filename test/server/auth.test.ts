@@ -17,7 +17,7 @@ describe('POST /api/auth/login', () => {
     const user = await t.addUser('designer', 'dana@test.example');
     const res = await request(t.app).post('/api/auth/login').send({ email: 'Dana@Test.Example ', password: TEST_PASSWORD });
     expect(res.status).toBe(200);
-    expect(res.body.user).toEqual({ id: user.id, email: 'dana@test.example', name: expect.any(String), role: 'designer', active: true });
+    expect(res.body.user).toEqual({ id: user.id, email: 'dana@test.example', name: expect.any(String), role: 'designer', active: true, passwordSet: true });
     const me = await request(t.app).get('/api/auth/me').set('Authorization', `Bearer ${res.body.token}`);
     expect(me.status).toBe(200);
     expect(me.body.email).toBe('dana@test.example');

@@ -117,6 +117,7 @@ describe('invitation', () => {
       type: QueryTypes.SELECT,
     });
     expect(stored.password_hash).toBeNull();
+    expect(created.body.passwordSet).toBe(false);
     // No password: every sign-in gets the same 401 as a wrong password (no hint the account exists).
     for (const password of ['', 'anything-at-all-1', TEST_PASSWORD]) {
       const res = await signIn('chiara.moss@tarnwick.example', password);
@@ -127,7 +128,9 @@ describe('invitation', () => {
     expect((await setPassword(token, 'shelf-count-2026')).status).toBe(200);
     const signedIn = await signIn('chiara.moss@tarnwick.example', 'shelf-count-2026');
     expect(signedIn.status).toBe(200);
-    expect(signedIn.body.user).toMatchObject({ email: 'chiara.moss@tarnwick.example', role: 'stores' });
+    expect(signedIn.body.user).toMatchObject({ email: 'chiara.moss@tarnwick.example', role: 'stores', passwordSet: true });
+    const listed = await asAdmin(request(t.app).get('/api/users'));
+    expect(listed.body.items.find((u: { email: string }) => u.email === 'chiara.moss@tarnwick.example').passwordSet).toBe(true);
     // A short first password is still refused when one is given.
     const short = await asAdmin(request(t.app).post('/api/users')).send({ email: 'x@tarnwick.example', name: 'X', role: 'stores', password: 'short' });
     expect(short.status).toBe(400);

@@ -33,7 +33,9 @@ describe('user administration', () => {
     const res = await asAdmin(request(t.app).get('/api/users'));
     expect(res.status).toBe(200);
     expect(res.body.items.map((u: { email: string }) => u.email)).toContain('boss@test.example');
-    for (const u of res.body.items) expect(Object.keys(u).sort()).toEqual(['active', 'email', 'id', 'name', 'role']);
+    // Whether a password is set, never anything of it.
+    for (const u of res.body.items) expect(Object.keys(u).sort()).toEqual(['active', 'email', 'id', 'name', 'passwordSet', 'role']);
+    expect(JSON.stringify(res.body)).not.toMatch(/argon2/);
   });
 
   it('refuses a taken e-mail with 409 and bad fields with 400 naming each', async () => {

@@ -15,8 +15,8 @@ import { AdminPage } from './admin-page.js';
 
 // Invented people of the demo company (product.md: Tarnwick Field Sensors).
 const ADMIN: User = { ...demoUser('admin', 1), name: 'Ada Okafor' };
-const BRUNO: User = { id: 2, email: 'rf.lead@tarnwick.example', name: 'Bruno Lindqvist', role: 'designer', active: true };
-const CARMEN: User = { id: 3, email: 'shelves@tarnwick.example', name: 'Carmen Ruiz', role: 'stores', active: false };
+const BRUNO: User = { id: 2, email: 'rf.lead@tarnwick.example', name: 'Bruno Lindqvist', role: 'designer', active: true, passwordSet: true };
+const CARMEN: User = { id: 3, email: 'shelves@tarnwick.example', name: 'Carmen Ruiz', role: 'stores', active: false, passwordSet: true };
 
 describe('AdminPage e-mailed links', () => {
   let fixture: ComponentFixture<AdminPage>;

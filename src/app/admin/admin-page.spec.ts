@@ -19,8 +19,8 @@ import { AdminPage } from './admin-page.js';
 const ADMIN: User = { ...demoUser('admin', 1), name: 'Ada Okafor' };
 const PEOPLE: User[] = [
   ADMIN,
-  { id: 2, email: 'rf.lead@tarnwick.example', name: 'Bruno Lindqvist', role: 'designer', active: true },
-  { id: 3, email: 'shelves@tarnwick.example', name: 'Carmen Ruiz', role: 'stores', active: false },
+  { id: 2, email: 'rf.lead@tarnwick.example', name: 'Bruno Lindqvist', role: 'designer', active: true, passwordSet: true },
+  { id: 3, email: 'shelves@tarnwick.example', name: 'Carmen Ruiz', role: 'stores', active: false, passwordSet: true },
 ];
 
 describe('AdminPage', () => {
@@ -63,6 +63,13 @@ describe('AdminPage', () => {
       ['Bruno Lindqvist', 'rf.lead@tarnwick.example', 'Active'],
       ['Carmen Ruiz', 'shelves@tarnwick.example', 'Deactivated'],
     ]);
+  });
+
+  it('marks a user who has not chosen a password yet as invited', async () => {
+    await openWithUsers([...PEOPLE, { id: 4, email: 'new.hire@tarnwick.example', name: 'Dara Finch', role: 'stores', active: true, passwordSet: false }]);
+    const rows = await tableRows();
+    expect(rows.find((row) => row['name'] === 'Dara Finch')?.['status']).toBe('Invited');
+    expect(rows.find((row) => row['name'] === 'Bruno Lindqvist')?.['status']).toBe('Active');
   });
 
   it('also reads a list in the {items} envelope', async () => {
@@ -146,7 +153,7 @@ describe('AdminPage', () => {
       role: 'purchasing',
       password: 'first-pass-2026',
     });
-    request.flush({ id: 4, email: 'buyer@tarnwick.example', name: 'Dana Whitcombe', role: 'purchasing', active: true });
+    request.flush({ id: 4, email: 'buyer@tarnwick.example', name: 'Dana Whitcombe', role: 'purchasing', active: true, passwordSet: true });
     await vi.waitFor(async () => expect((await tableRows()).map((row) => row['name'])).toContain('Dana Whitcombe'));
     expect(await (await field('new-user-email')).getValue()).toBe('');
   });

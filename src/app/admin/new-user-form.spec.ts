@@ -69,7 +69,7 @@ describe('NewUserForm', () => {
     await submit();
     const sent = backend.expectOne('/api/users');
     expect(sent.request.body).toEqual({ email: 'tech@tarnwick.example', name: 'Fen Oduya', role: 'designer', password: 'long-enough-pass' });
-    sent.flush({ id: 5, email: 'tech@tarnwick.example', name: 'Fen Oduya', role: 'designer', active: true });
+    sent.flush({ id: 5, email: 'tech@tarnwick.example', name: 'Fen Oduya', role: 'designer', active: true, passwordSet: true });
     await fixture.whenStable();
     expect(invite).not.toHaveBeenCalled();
   });
@@ -85,7 +85,7 @@ describe('NewUserForm', () => {
     const sent = backend.expectOne('/api/users');
     // No password field at all: the server then keeps none.
     expect(sent.request.body).toEqual({ email: 'new@tarnwick.example', name: 'Ines Varga', role: 'designer' });
-    const user = { id: 6, email: 'new@tarnwick.example', name: 'Ines Varga', role: 'designer', active: true };
+    const user = { id: 6, email: 'new@tarnwick.example', name: 'Ines Varga', role: 'designer', active: true, passwordSet: true };
     sent.flush(user);
     await fixture.whenStable();
     expect(created).toHaveBeenCalledWith(user);

@@ -3,7 +3,7 @@ import { SESSION_STORAGE_KEY } from '../auth/auth-session.js';
 
 /** An invented user of the demo company for specs, with the given role. */
 export function demoUser(role: Role, id = 7): User {
-  return { id, email: `${role}@tarnwick.example`, name: `Demo ${role}`, role, active: true };
+  return { id, email: `${role}@tarnwick.example`, name: `Demo ${role}`, role, active: true, passwordSet: true };
 }
 
 /**
