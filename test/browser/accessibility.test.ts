@@ -89,10 +89,11 @@ beforeAll(async () => {
   const build = await api<{ id: number }>('POST', '/api/builds', designerToken, { name: `Accessibility board ${stamp}`, quantity: 20_000, matchIds: [saved.id], reserve: true });
   buildId = build.id;
 
-  // An invitation, so the set-password page has a live link and the Outbox a message.
+  // An invited user with no password yet (the Admin table marks them), so the set-password page
+  // has a live link and the Outbox a message.
   const adminToken = await tokenOf('admin@tarnwick.example');
   const email = `a11y-invited-${stamp}@tarnwick.example`;
-  const user = await api<{ id: number }>('POST', '/api/users', adminToken, { email, name: 'Ines Marlow', role: 'designer', password: 'placeholder-first-password' });
+  const user = await api<{ id: number }>('POST', '/api/users', adminToken, { email, name: 'Ines Marlow', role: 'designer' });
   await api('POST', `/api/users/${user.id}/invitation`, adminToken, {});
   const mail = await waitForMailTo(mailDir, email, { subject: 'invited' });
   const link = mail.text?.match(/http:\/\/\S+\/set-password\?token=\S+/)?.[0];
