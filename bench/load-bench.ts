@@ -11,7 +11,9 @@
  * service time of each body, then requests/s, p50/p90/p99 latency, errors, timeouts and non-2xx.
  * Both ways solves can run, side by side on the same database: on worker threads (the default,
  * one per core) and on the event loop (`SOLVE_THREADS=0`); beside each mix run, a few clients
- * ask `GET /api/health`, whose latency shows whether solves hold up the other requests.
+ * ask `GET /api/health`, whose latency shows whether solves hold up the other requests; and beside
+ * a load of combination solves only, a few clients ask single-part solves, whose latency shows
+ * whether a quick question waits behind the long ones.
  * A report, never a test: nothing here passes or fails.
  *
  * Run: `npx tsx bench/load-bench.ts` (or `npm run bench`); `LOAD_BENCH_SECONDS` sets the solve run's length,
@@ -41,6 +43,10 @@ const HEALTH_SECONDS = 10;
 const WARMUP_SECONDS = 3;
 /** Health clients beside the mix, to see whether solves hold up other requests. */
 const HEALTH_BESIDE_CONNECTIONS = 5;
+/** Clients asking combination solves only (enough to keep every thread busy, few enough that answers come within the run). */
+const COMBINATION_CONNECTIONS = 4;
+/** Clients asking single-part solves beside them. */
+const SINGLES_BESIDE_CONNECTIONS = 5;
 /** The server's default solve threads (server/config.ts): one per core. */
 const DEFAULT_THREADS = Number(process.env.LOAD_BENCH_THREADS ?? Math.max(1, availableParallelism()));
 const PASSWORD = 'load-bench-password-1';
@@ -201,6 +207,9 @@ interface ConfigurationRun {
   mix: AutocannonResult;
   /** `GET /api/health` from a few more clients while the mix runs. */
   healthDuringMix: AutocannonResult;
+  /** Combination solves only, and single-part solves from a few more clients beside them. */
+  combosOnly: AutocannonResult;
+  singlesBesideCombos: AutocannonResult;
 }
 
 /** Service times, singles, then the mix with health requests beside it, on one server. */
@@ -221,6 +230,7 @@ async function runConfiguration(label: string, url: string, bodies: object[]): P
   const asRequests = (list: object[]) => list.map((body) => ({ method: 'POST', path: '/api/matches/solve', headers, body: JSON.stringify(body) }));
   const requests = asRequests(bodies);
   const singlesOnly = asRequests(bodies.filter((body) => !(body as { combinations?: boolean }).combinations));
+  const combosOnlyRequests = asRequests(bodies.filter((body) => (body as { combinations?: boolean }).combinations));
   await autocannon({ url, connections: CONNECTIONS, duration: WARMUP_SECONDS, requests: singlesOnly, timeout: 60 });
   await drain(url);
   const singles = await autocannon({ url, connections: CONNECTIONS, duration: SOLVE_SECONDS, requests: singlesOnly, timeout: 60 });
@@ -230,7 +240,13 @@ async function runConfiguration(label: string, url: string, bodies: object[]): P
     autocannon({ url: `${url}/api/health`, connections: HEALTH_BESIDE_CONNECTIONS, duration: SOLVE_SECONDS, timeout: 60 }),
   ]);
   await drain(url);
-  return { label, single, combined, singles, mix, healthDuringMix };
+  // Does a quick question wait behind the long ones? Single-part solves beside combinations only.
+  const [combosOnly, singlesBesideCombos] = await Promise.all([
+    autocannon({ url, connections: COMBINATION_CONNECTIONS, duration: SOLVE_SECONDS, requests: combosOnlyRequests, timeout: 60 }),
+    autocannon({ url, connections: SINGLES_BESIDE_CONNECTIONS, duration: SOLVE_SECONDS, requests: singlesOnly, timeout: 60 }),
+  ]);
+  await drain(url);
+  return { label, single, combined, singles, mix, healthDuringMix, combosOnly, singlesBesideCombos };
 }
 
 async function main(): Promise<void> {
@@ -287,12 +303,18 @@ async function main(): Promise<void> {
       console.log(line(`  solve, single parts only, ${SOLVE_SECONDS} s`, run.singles));
       console.log(line(`  solve, mix (${Math.round((100 * combos) / bodies.length)} % combinations), ${SOLVE_SECONDS} s`, run.mix));
       console.log(line(`  + GET /api/health beside it (${HEALTH_BESIDE_CONNECTIONS} clients)`, run.healthDuringMix));
-      console.log(`    status codes: singles ${codes(run.singles)}, mix ${codes(run.mix)}, health beside ${codes(run.healthDuringMix)}`);
+      console.log(line(`  solve, combinations only (${COMBINATION_CONNECTIONS} clients), ${SOLVE_SECONDS} s`, run.combosOnly));
+      console.log(line(`  + single-part solves beside it (${SINGLES_BESIDE_CONNECTIONS} clients)`, run.singlesBesideCombos));
+      console.log(
+        `    status codes: singles ${codes(run.singles)}, mix ${codes(run.mix)}, health beside ${codes(run.healthDuringMix)}, ` +
+          `combinations ${codes(run.combosOnly)}, singles beside ${codes(run.singlesBesideCombos)}`,
+      );
     }
     const [threads, loop] = runs;
     console.log(
       `  threads / event loop: singles ${(rate(threads.singles) / rate(loop.singles)).toFixed(2)}x req/s; mix ${(rate(threads.mix) / rate(loop.mix)).toFixed(2)}x req/s; ` +
-        `health beside the mix p99 ${formatMs(threads.healthDuringMix.latency.p99)} against ${formatMs(loop.healthDuringMix.latency.p99)}`,
+        `health beside the mix p99 ${formatMs(threads.healthDuringMix.latency.p99)} against ${formatMs(loop.healthDuringMix.latency.p99)}; ` +
+        `singles beside combinations p90 ${formatMs(threads.singlesBesideCombos.latency.p90)} against ${formatMs(loop.singlesBesideCombos.latency.p90)}`,
     );
   } finally {
     for (const server of servers) await server.stop();

@@ -3,10 +3,15 @@
  * boundary must come back unchanged: the route's answer equals snapMatch run in this process on
  * the same stock and settings (typed and measured loads, with combinations); a thread never
  * answers from an index of stock it has not been sent (each stock change reaches every thread);
- * and the engine's refusals come back as the same EngineInputError, message and details.
+ * and the engine's refusals come back as the same EngineInputError, message and details; and a
+ * single-part solve is answered while combination searches fill every thread (its own lane); and
+ * the solve of a caller that closed its connection is given up, not run.
  * The engine's numbers themselves are checked against outside sources in test/engine/.
  */
 import { readFileSync } from 'node:fs';
+import { createServer, request as httpRequest } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { setTimeout as sleep } from 'node:timers/promises';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { startTestApp, type TestApp } from '../support/test-app.js';
@@ -17,7 +22,7 @@ import { isEngineInputError } from '../../shared/engine/engine-input-error.js';
 import { snapMatch, type SnapSettings } from '../../shared/snapping/snap-match.js';
 import { buildStockIndex } from '../../shared/snapping/stock-index.js';
 import { loadSolveStock } from '../../server/services/matches/load-stock-index.js';
-import { closeSolvePool, snapOnThread, solveThreads } from '../../server/services/matches/solve-pool.js';
+import { closeSolvePool, laneOf, snapOnThread, solveCounts, solveThreads } from '../../server/services/matches/solve-pool.js';
 import { readSettings } from '../../server/services/settings/read-settings.js';
 
 let t: TestApp;
@@ -51,6 +56,13 @@ async function onThread(body: Record<string, unknown>) {
   return res.body;
 }
 
+/** Waits (polling) until `done()`; fails after 20 s, naming what it waited for. */
+async function until(done: () => boolean, what: string): Promise<void> {
+  for (const start = Date.now(); !done(); await sleep(5)) {
+    if (Date.now() - start > 20_000) throw new Error(`waited 20 s for ${what}`);
+  }
+}
+
 const measured = () => ({ fileName: DEMO_ANTENNA_FILE.split('/').pop(), text: readFileSync(DEMO_ANTENNA_FILE, 'utf8') });
 
 describe('solves on worker threads', () => {
@@ -79,6 +91,54 @@ describe('solves on worker threads', () => {
     const after = await Promise.all(Array.from({ length: solveThreads() * 3 }, () => onThread(body)));
     for (const answer of after) expect(first(answer)).not.toBe(chosen);
     expect(after[0]).toEqual(JSON.parse(JSON.stringify(await inProcess(body))));
+  });
+
+  it('answer a single-part solve while combination searches fill every thread of theirs', async () => {
+    const stock = await loadSolveStock(t.sequelize, { location: null });
+    const s = await settings();
+    const single = parseSolveRequest({ source: 50, load: '12-j35', frequencyHz: '868MHz', objective: 'nominal', fitsPerNetwork: 1 });
+    const search = parseSolveRequest({ source: 50, load: '12-j35', frequencyHz: '868MHz', bandwidthHz: '20MHz', combinations: true, objective: 'worst-case', fitsPerNetwork: 3 });
+    expect([laneOf(single), laneOf(search)]).toEqual(['single', 'combinations']);
+    const solve = (input: typeof single) => snapOnThread(input, s, {}, stock);
+    const n = solveThreads();
+    // Every thread of both lanes started, with this stock indexed, so no start-up is timed below.
+    await Promise.all([...Array.from({ length: n }, () => solve(single)), ...Array.from({ length: n }, () => solve(search))]);
+    const finished: string[] = [];
+    const searches = Array.from({ length: 2 * n }, (_, i) => solve(search).then(() => finished.push(`search ${i}`)));
+    const quick = solve(single).then(() => finished.push('single'));
+    await Promise.all([...searches, quick]);
+    // Asked last, behind twice as many searches as there are threads: in one queue it would wait
+    // for n of them to end.
+    expect(finished[0]).toBe('single');
+  });
+
+  it('give up the solve of a caller that closed its connection', async () => {
+    const stock = await loadSolveStock(t.sequelize, { location: null });
+    const s = await settings();
+    const searchBody = { source: 50, load: '12-j35', frequencyHz: '868MHz', bandwidthHz: '20MHz', combinations: true, objective: 'worst-case', fitsPerNetwork: 3 };
+    const search = parseSolveRequest(searchBody);
+    const n = solveThreads();
+    const { abandoned: before } = solveCounts();
+    // Every combination thread busy, and as many searches queued, so the request below waits.
+    const busy = Array.from({ length: 2 * n }, () => snapOnThread(search, s, {}, stock));
+    const server = createServer(t.app);
+    await new Promise<void>((ready) => server.listen(0, '127.0.0.1', () => ready()));
+    try {
+      const { port } = server.address() as AddressInfo;
+      const payload = JSON.stringify(searchBody);
+      const call = httpRequest({ host: '127.0.0.1', port, method: 'POST', path: '/api/matches/solve', headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json', 'Content-Length': Buffer.byteLength(payload) } });
+      const closed = new Promise<void>((done) => call.on('close', () => done()));
+      call.on('error', () => undefined);
+      call.end(payload);
+      await until(() => solveCounts().inFlight > 2 * n, 'the request to reach the solve queue');
+      call.destroy();
+      await closed;
+      await until(() => solveCounts().abandoned > before, 'the server to give the solve up');
+    } finally {
+      await new Promise((done) => server.close(done));
+    }
+    await Promise.all(busy);
+    expect(solveCounts()).toEqual({ inFlight: 0, abandoned: before + 1 });
   });
 
   it('bring the engine refusals back as the same EngineInputError', async () => {

@@ -19,8 +19,19 @@ export function matchesRouter(ctx: AppContext): Router {
   router.use(ctx.requireSignIn);
 
   router.post('/solve', async (req, res) => {
-    const solved = await solveMatch(ctx.sequelize, req.body);
-    res.json(solved.response);
+    // A caller that goes away (the page asked again, or was closed) needs no answer: its solve
+    // leaves the queue, or stops, and frees the thread for the others.
+    const gone = new AbortController();
+    res.on('close', () => {
+      if (!res.writableFinished) gone.abort();
+    });
+    try {
+      const solved = await solveMatch(ctx.sequelize, req.body, undefined, gone.signal);
+      res.json(solved.response);
+    } catch (error) {
+      if (gone.signal.aborted) return;
+      throw error;
+    }
   });
 
   router.get('/', async (req, res) => {

@@ -41,8 +41,11 @@ export function readSolveRequest(body: unknown, what = 'solve request'): SolveIn
   }
 }
 
-/** Solves `body` against the stock as it is now. */
-export async function solveMatch(sequelize: Sequelize, body: unknown, transaction?: Transaction): Promise<SolvedMatch> {
+/**
+ * Solves `body` against the stock as it is now; `signal` gives the solve up (its caller went away).
+ * @throws the signal's reason once `signal` has fired
+ */
+export async function solveMatch(sequelize: Sequelize, body: unknown, transaction?: Transaction, signal?: AbortSignal): Promise<SolvedMatch> {
   const input = readSolveRequest(body);
   const objectiveGiven = typeof body === 'object' && body !== null && (body as { objective?: unknown }).objective != null;
   const org = await readSettings(transaction);
@@ -56,7 +59,7 @@ export async function solveMatch(sequelize: Sequelize, body: unknown, transactio
   let response: SnappedSolveResponse;
   try {
     // On a solve thread (solve-pool.ts), so a long snap holds up no other request.
-    response = await snapOnThread(input, settings, { objectiveGiven, location: input.location }, { key, fingerprint, parts });
+    response = await snapOnThread(input, settings, { objectiveGiven, location: input.location }, { key, fingerprint, parts }, signal);
   } catch (error) {
     if (isEngineInputError(error)) throw badRequest(`The solve request is not valid: ${error.message}`, error.details.map(detailOf));
     throw error;

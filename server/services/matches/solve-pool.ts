@@ -3,6 +3,13 @@
  * second or more of CPU, and on the event loop it would hold up every other request meanwhile
  * (sign-ins, health, stock pages) and let queued database requests time out. The thread runs
  * solve-worker.ts, bundled to plain JavaScript ({@link workerModule}).
+ *
+ * Two lanes, each a pool of its own: single-part solves (tens of milliseconds) and searches with
+ * two-part combinations (up to a second or so). In one queue, a quick question asked while a
+ * colleague's combination searches fill every thread waited for them to finish; in its own lane it
+ * starts at once and shares the cores with them (the load bench's "single-part solves beside
+ * combinations" shows it). Each lane may run as many threads as `SOLVE_THREADS`, so either kind
+ * alone still has every core.
  */
 import { createHash } from 'node:crypto';
 import { existsSync, renameSync, writeFileSync } from 'node:fs';
@@ -20,9 +27,17 @@ import solveHere, { type SolveOutcome, type SolveTask } from './solve-worker.js'
 /** Threads by default: one per core the process may use. */
 export const DEFAULT_SOLVE_THREADS = Math.max(1, availableParallelism());
 
-/** Solve threads now (`SOLVE_THREADS`; 0 solves on the event loop, as a baseline for the load bench). */
+/** The two kinds of solve, each with threads of its own. */
+export type SolveLane = 'single' | 'combinations';
+
+/** The lane of a request: combination searches are the long ones. */
+export function laneOf(input: Pick<SolveInput, 'combinations'>): SolveLane {
+  return input.combinations ? 'combinations' : 'single';
+}
+
+/** Solve threads per lane now (`SOLVE_THREADS`; 0 solves on the event loop, as a baseline for the load bench). */
 let threads = DEFAULT_SOLVE_THREADS;
-let pool: Piscina<SolveTask, SolveOutcome> | null = null;
+let pools: Partial<Record<SolveLane, Piscina<SolveTask, SolveOutcome>>> = {};
 
 /** Sets how many solve threads run (createApp, from the configuration); a running pool is ended. */
 export function setSolveThreads(count: number): void {
@@ -31,7 +46,7 @@ export function setSolveThreads(count: number): void {
   void closeSolvePool();
 }
 
-/** How many solve threads run (0: solves run on the event loop). */
+/** How many solve threads each lane may run (0: solves run on the event loop). */
 export function solveThreads(): number {
   return threads;
 }
@@ -64,34 +79,67 @@ function workerModule(): string {
   return pathToFileURL(file).href;
 }
 
-function solvePool(): Piscina<SolveTask, SolveOutcome> {
+/** Solves handed to a lane and not yet answered, and solves given up because their signal fired. */
+let inFlight = 0;
+let abandoned = 0;
+
+/** The module the threads run, bundled once per process. */
+let bundled: string | null = null;
+
+function solvePool(lane: SolveLane): Piscina<SolveTask, SolveOutcome> {
+  let pool = pools[lane];
   if (!pool) {
+    bundled ??= workerModule();
     pool = new Piscina({
-      filename: workerModule(),
+      filename: bundled,
       minThreads: 0,
       maxThreads: threads,
       // A thread idle this long ends (it keeps its stock indexes until then).
       idleTimeout: 60_000,
     });
+    pools[lane] = pool;
   }
   return pool;
 }
 
 /**
- * Snaps `input` to the stock `parts` (read for `stockKey` with `fingerprint`) on a solve thread.
+ * Snaps `input` to the stock `parts` (read for `stockKey` with `fingerprint`) on a thread of its
+ * lane ({@link laneOf}). When `signal` fires, a queued solve leaves the queue and a running one
+ * stops (piscina ends its thread; the lane starts another when needed), and the promise rejects
+ * with the signal's reason.
  * @throws EngineInputError when the engine refuses the request, as snapMatch would
+ * @throws the signal's reason (an AbortError) once `signal` has fired
  */
 export async function snapOnThread(
   input: SolveInput,
   settings: SnapSettings,
   options: SnapMatchOptions,
   stock: { key: string; fingerprint: string; parts: SnapPart[] },
+  signal?: AbortSignal,
 ): Promise<SnappedSolveResponse> {
   const task: SolveTask = { input, settings, options, stockKey: stock.key, fingerprint: stock.fingerprint };
+  signal?.throwIfAborted();
   if (threads === 0) return answerOf(solveHere({ ...task, parts: stock.parts }));
-  let outcome = await solvePool().run(task);
-  if (outcome.kind === 'need-stock') outcome = await solvePool().run({ ...task, parts: stock.parts });
-  return answerOf(outcome);
+  const pool = solvePool(laneOf(input));
+  inFlight += 1;
+  try {
+    let outcome = await pool.run(task, { signal });
+    if (outcome.kind === 'need-stock') outcome = await pool.run({ ...task, parts: stock.parts }, { signal });
+    return answerOf(outcome);
+  } catch (error) {
+    if (signal?.aborted) abandoned += 1;
+    throw error;
+  } finally {
+    inFlight -= 1;
+  }
+}
+
+/**
+ * How many solves are queued or running on the threads now, and how many were given up so far
+ * (their caller went away), for the tests.
+ */
+export function solveCounts(): { inFlight: number; abandoned: number } {
+  return { inFlight, abandoned };
 }
 
 function answerOf(outcome: SolveOutcome): SnappedSolveResponse {
@@ -103,9 +151,9 @@ function answerOf(outcome: SolveOutcome): SnappedSolveResponse {
   return outcome.response;
 }
 
-/** Ends the solve threads (server shutdown); a later solve starts them again. */
+/** Ends the solve threads of both lanes (server shutdown); a later solve starts them again. */
 export async function closeSolvePool(): Promise<void> {
-  const ending = pool;
-  pool = null;
-  await ending?.destroy();
+  const ending = Object.values(pools);
+  pools = {};
+  await Promise.all(ending.map((pool) => pool.destroy()));
 }
