@@ -62,6 +62,17 @@ async function checkScreen(page: Page, name: string): Promise<void> {
   await page.evaluate(() => window.scrollTo(0, 0));
   await screenshot(page, `a11y-${name}`);
   expect.soft(await accessibilityProblems(page, name), `axe (WCAG 2 A/AA) on the ${name} screen`).toEqual([]);
+  // Text meant for screen readers only is not drawn (a button's "Choose" once showed the whole
+  // "fit 1 of Shunt at load · solution 1" after it, squeezing the fit's summary).
+  const drawn = await page.evaluate(() =>
+    [...document.querySelectorAll('.cdk-visually-hidden, .visually-hidden, .sr-only')]
+      .filter((el) => {
+        const box = el.getBoundingClientRect();
+        return box.width > 1 || box.height > 1;
+      })
+      .map((el) => el.textContent?.trim() ?? ''),
+  );
+  expect.soft(drawn, `screen-reader-only text drawn on the ${name} screen`).toEqual([]);
 }
 
 /** Narrows the window below the shell's 720 px breakpoint (navigation as icons only) and waits for that layout. */
