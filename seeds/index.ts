@@ -9,6 +9,7 @@ import { User } from '../server/models/index.js';
 import { hashPassword } from '../server/services/users/password.js';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './demo-accounts.js';
 import { loadDemoStock } from './load-demo-stock.js';
+import { loadDemoWork } from './demo-work.js';
 
 interface Seed {
   name: string;
@@ -28,6 +29,7 @@ const SEEDS: Seed[] = [
     },
   },
   { name: '0002-demo-stock', run: loadDemoStock },
+  { name: '0003-demo-work', run: loadDemoWork },
 ];
 
 /** Runs every seed not yet recorded in `seed_runs`; returns the names run. */

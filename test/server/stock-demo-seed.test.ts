@@ -2,12 +2,15 @@
  * The demo stock (seeds/demo-stock.csv) goes in through the importer cleanly and looks like real
  * 0402/0603 parts. Plausibility bounds are facts of the trade for chip parts: C0G capacitor SRF falls
  * as C grows; 0402 inductors from 1 nH to 120 nH resonate between about 1 GHz and 20 GHz.
+ * The demo work (a saved match per radio link, two builds, one of them short) goes in through the
+ * same services the API uses, once.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import request from 'supertest';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { seedDemoData } from '../../seeds/index.js';
+import { DEMO_BUILDS, DEMO_MATCHES } from '../../seeds/demo-work.js';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -61,5 +64,36 @@ describe('demo stock', () => {
     expect(res.status).toBe(200);
     expect(res.body.items.length).toBeGreaterThan(0);
     for (const item of res.body.items) expect(item.value).toBe(12e-9);
+  });
+});
+
+describe('demo work (seeds/demo-work.ts)', () => {
+  it('saves one match per radio link of the scenario, each with a stocked fit, by the demo designer', async () => {
+    const rows = await t.sequelize.query<{ name: string; email: string; parts: number }>(
+      "SELECT m.name, u.email, jsonb_array_length(m.fit->'elements') AS parts FROM matches m JOIN users u ON u.id = m.created_by ORDER BY m.id",
+      { type: QueryTypes.SELECT },
+    );
+    expect(rows.map((r) => r.name)).toEqual(DEMO_MATCHES.map((m) => m.name));
+    for (const row of rows) expect(row).toMatchObject({ email: 'designer@tarnwick.example', parts: 2 });
+  });
+
+  it('plans two reserved builds: the first covered by stock, the second with a shortfall list, nothing oversold', async () => {
+    const builds = await t.sequelize.query<{ name: string; quantity: number; status: string; list: number | null; lines: number }>(
+      `SELECT b.name, b.quantity, b.status, l.id AS list, (SELECT count(*)::int FROM shortfall_lines x WHERE x.list_id = l.id) AS lines
+       FROM builds b LEFT JOIN shortfall_lists l ON l.build_id = b.id ORDER BY b.id`,
+      { type: QueryTypes.SELECT },
+    );
+    expect(builds.map((b) => [b.name, b.quantity, b.status])).toEqual(DEMO_BUILDS.map((b) => [b.name, b.quantity, 'reserved']));
+    expect(builds[0].list).toBeNull();
+    expect(builds[1].list).not.toBeNull();
+    expect(builds[1].lines).toBeGreaterThan(0);
+    const [{ oversold }] = await t.sequelize.query<{ oversold: number }>('SELECT count(*)::int AS oversold FROM parts WHERE reserved > quantity', { type: QueryTypes.SELECT });
+    expect(oversold).toBe(0);
+  });
+
+  it('runs once: seeding again adds nothing', async () => {
+    expect(await seedDemoData(t.sequelize)).toEqual([]);
+    const [{ matches }] = await t.sequelize.query<{ matches: number }>('SELECT count(*)::int AS matches FROM matches', { type: QueryTypes.SELECT });
+    expect(matches).toBe(DEMO_MATCHES.length);
   });
 });
