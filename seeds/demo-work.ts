@@ -34,11 +34,11 @@ export const DEMO_MATCHES: readonly { name: string; request: SolveRequest }[] = 
 /** The two demo builds: which matches (by index above) one board carries, and how many boards. */
 export const DEMO_BUILDS: readonly { name: string; matches: readonly number[]; quantity: number }[] = [
   { name: 'Soil node rev B, pilot run', matches: [0, 2], quantity: 20 },
-  { name: 'Reader board and gateway, first batch', matches: [3, 4], quantity: 600 },
+  { name: 'Reader board and gateway, first batch', matches: [3, 4], quantity: 150 },
 ];
 
 /**
- * Saves the demo matches (each with the best fit of the first network that has one) and plans and
+ * Saves the demo matches (each with the fit that loses least at the worst tolerance corner) and plans and
  * reserves the demo builds. Throws, naming the match, when the demo stock gives a link no fit.
  */
 export async function loadDemoWork(sequelize: Sequelize): Promise<void> {
@@ -47,9 +47,12 @@ export async function loadDemoWork(sequelize: Sequelize): Promise<void> {
   const ids: number[] = [];
   for (const { name, request } of DEMO_MATCHES) {
     const { response } = await solveMatch(sequelize, request);
-    const network = response.networks.find((n) => n.fits.length > 0);
-    if (!network) throw new Error(`The demo stock gives no stocked fit for the demo match "${name}".`);
-    const saved = await saveMatch(sequelize, designer.id, { name, request, chosen: { placement: network.placement, solution: network.solution, rank: 1 } });
+    // As a designer would: the network whose best fit loses least at the worst tolerance corner.
+    const best = response.networks
+      .filter((n) => n.fits.length > 0)
+      .sort((a, b) => a.fits[0].loss.worstCaseDb - b.fits[0].loss.worstCaseDb)[0];
+    if (!best) throw new Error(`The demo stock gives no stocked fit for the demo match "${name}".`);
+    const saved = await saveMatch(sequelize, designer.id, { name, request, chosen: { placement: best.placement, solution: best.solution, rank: best.fits[0].rank } });
     ids.push(saved.id);
   }
   for (const build of DEMO_BUILDS) {
