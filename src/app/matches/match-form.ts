@@ -68,6 +68,8 @@ export class MatchForm {
   readonly preset = input<SolveRequest | null>(null);
   /** Emits the request to solve when the form reads cleanly. */
   readonly solve = output<SolveRequest>();
+  /** Emits when the user stops the solve on its way (the server then gives it up). */
+  readonly stop = output<void>();
 
   protected readonly objectives = OBJECTIVE_CHOICES;
   protected readonly measuredFileAccept = MEASURED_FILE_ACCEPT;

@@ -96,6 +96,29 @@ describe('MatchesPage', () => {
     vi.restoreAllMocks();
   });
 
+  it('stops a solve on its way: the request is cancelled and the form can solve again', async () => {
+    await open();
+    expect(all('match-stop')).toHaveLength(0);
+    await (await field('match-load')).setValue('12-j35');
+    await (await field('match-frequency')).setValue('868MHz');
+    await (await button('match-solve')).click();
+    const request = backend.expectOne({ method: 'POST', url: '/api/matches/solve' });
+    expect(await (await button('match-solve')).isDisabled()).toBe(true);
+    await (await button('match-stop')).click();
+    expect(request.cancelled).toBe(true);
+    expect(all('match-stop')).toHaveLength(0);
+    expect(await (await button('match-solve')).isDisabled()).toBe(false);
+    expect(all('network-card')).toHaveLength(0);
+    expect(document.body.textContent).toContain('Solve stopped');
+    // And solving again asks again.
+    await (await button('match-solve')).click();
+    backend.expectOne({ method: 'POST', url: '/api/matches/solve' }).flush(SOLVED);
+    await fixture.whenStable();
+    answerPartLookups();
+    await fixture.whenStable();
+    expect(all('network-card').length).toBeGreaterThan(0);
+  });
+
   it('renders one card per ideal network, with its traits and fits', async () => {
     await open();
     await solveDemoMatch();

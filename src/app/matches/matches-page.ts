@@ -186,6 +186,17 @@ export class MatchesPage {
     this.submitted.set({ ...request });
   }
 
+  /**
+   * Stops the solve on its way: the request is cancelled, and the server, seeing the connection
+   * close, takes the solve off its queue or ends it, so a long combination search asked by mistake
+   * costs nobody else a thread.
+   */
+  protected stopSolve(): void {
+    if (this.solved().status !== 'loading') return;
+    this.submitted.set(null);
+    this.snackBar.open('Solve stopped; nothing was solved.', 'Close', { duration: NOTICE_MS });
+  }
+
   protected chooseFit(choice: ChosenFit): void {
     this.chosen.set(choice);
   }
