@@ -3,7 +3,7 @@
  * Journey 2 of product.md in Chromium: a designer solves the demo scenario's 868 MHz chip-antenna
  * match (12 - j35 ohm, invented in seeds/) against the demo stock, sees the ideal networks with their
  * ranked fits, losses and flags, the TPG plot and the Smith chart with the cautions, saves a fit,
- * and reopens it from the saved matches.
+ * and reopens it from the saved matches; and stops a solve on its way.
  */
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { openBrowser, screenshot, signInAs, type BrowserSession } from '../support/browser.js';
@@ -62,5 +62,31 @@ describe('the match workspace', () => {
     await page.getByTestId('tpg-plot').waitFor();
     await page.getByTestId('smith-chart').waitFor();
     await screenshot(page, 'match-reopened');
+  });
+
+  it('stops a solve on its way: the browser drops the request and the form can solve again', async () => {
+    const { page } = b;
+    await page.goto(`${baseUrl}/matches`);
+    // Held a moment on its way, so there is time to press Stop (the demo stock solves in milliseconds).
+    await page.route('**/api/matches/solve', async (route) => {
+      await new Promise((resolve) => setTimeout(resolve, 3000));
+      await route.continue().catch(() => undefined);
+    });
+    try {
+      await page.getByTestId('match-source').fill('50');
+      await page.getByTestId('match-load').fill('28-j16');
+      await page.getByTestId('match-frequency').fill('2.45GHz');
+      const dropped = page.waitForEvent('requestfailed', (r) => r.url().endsWith('/api/matches/solve'));
+      await page.getByTestId('match-solve').click();
+      await page.getByTestId('match-stop').click();
+      expect((await dropped).failure()?.errorText).toMatch(/abort/i);
+      expect(await page.getByTestId('match-stop').count()).toBe(0);
+      expect(await page.getByTestId('match-solve').isEnabled()).toBe(true);
+      expect(await page.getByTestId('network-card').count()).toBe(0);
+    } finally {
+      await page.unroute('**/api/matches/solve');
+    }
+    await page.getByTestId('match-solve').click();
+    await expect.poll(() => page.getByTestId('network-card').count(), { timeout: 20_000 }).toBeGreaterThan(0);
   });
 });
