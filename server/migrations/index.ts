@@ -11,6 +11,7 @@ import * as mailAndUserTokens from './20261202-0003-mail-and-user-tokens.js';
 import * as matchesAndSettings from './20261202-0004-matches-and-settings.js';
 import * as buildsAndShortfall from './20261202-0005-builds-and-shortfall.js';
 import * as stockImportWriteKeys from './20261202-0006-stock-import-write-keys.js';
+import * as stockVersions from './20261202-0007-stock-versions.js';
 
 interface MigrationModule {
   up(params: { context: QueryInterface }): Promise<void>;
@@ -25,6 +26,7 @@ const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261202-0005-builds-and-shortfall', module: buildsAndShortfall },
   { name: '20261202-0002-stock-bulk-keys', module: stockBulkKeys },
   { name: '20261202-0006-stock-import-write-keys', module: stockImportWriteKeys },
+  { name: '20261202-0007-stock-versions', module: stockVersions },
 ];
 
 /** Builds the migrator for `sequelize`. */

@@ -6,12 +6,10 @@
  * Reading 10k parts and indexing them costs more than most solves, so the parts are kept per
  * location and used again while the stock is unchanged, and each solve thread keeps its index of
  * them under the same fingerprint (solve-worker.ts). "Unchanged" is asked of the database in the
- * caller's own transaction, by a fingerprint of the very rows the index holds: their count and the
- * sum of a 64-bit hash of each whole row (every column, `reserved` and `updated_at` included). Any
- * insert, update or delete of one of those rows changes it, whatever order transactions commit in
- * (a version counter from a sequence would not: sequence order is not commit order). Two different
- * stocks share a fingerprint only by a hash collision (about 2^-64 per comparison). The fingerprint
- * is one scan without sending rows, a few milliseconds for 10k parts (bench/load-bench.ts).
+ * caller's own transaction: the fingerprint is the location's row of `stock_versions` ('' for all
+ * locations), which PostgreSQL raises in the same transaction as any statement that changes a part
+ * there, in commit order (migration 0007 says how). One row read, whatever the size of the stock;
+ * the parts and the version they are kept under come from one statement, so one snapshot.
  */
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { SnapPart } from '../../../shared/snapping/snap-part.js';
@@ -31,14 +29,16 @@ const caches = new WeakMap<Sequelize, Map<string, CachedStock>>();
 /** How the last call was answered (for tests and the bench). */
 export const stockIndexCacheStats = { hits: 0, misses: 0 };
 
-/** The fingerprint of the parts a solve would read: `count:sum-of-row-hashes`. */
-async function stockFingerprint(sequelize: Sequelize, location: string | null, transaction?: Transaction): Promise<string> {
-  const row = await sequelize.query<{ n: string; h: string | null }>(
-    `SELECT count(*)::text AS n, sum(hashtextextended(p::text, 0)::numeric)::text AS h FROM parts p ${location ? 'WHERE location = :location' : ''}`,
-    { type: QueryTypes.SELECT, replacements: { location }, transaction, plain: true },
-  );
-  // sum() of no rows is NULL: written as 0, as the reader below writes an empty stock.
-  return `${row?.n ?? '0'}:${row?.h ?? '0'}`;
+/** The fingerprint of the parts a solve would read: the version of their location's stock. */
+async function stockFingerprint(sequelize: Sequelize, key: string, transaction?: Transaction): Promise<string> {
+  const row = await sequelize.query<{ version: string }>('SELECT version::text AS version FROM stock_versions WHERE location = :key', {
+    type: QueryTypes.SELECT,
+    replacements: { key },
+    transaction,
+    plain: true,
+  });
+  // A location no statement has written to yet has no row: it holds no parts.
+  return `v${row?.version ?? '0'}`;
 }
 
 /**
@@ -56,7 +56,7 @@ export async function loadSolveStock(
     caches.set(sequelize, cache);
   }
   const key = options.location ?? '';
-  const fingerprint = await stockFingerprint(sequelize, options.location, transaction);
+  const fingerprint = await stockFingerprint(sequelize, key, transaction);
   const cached = cache.get(key);
   if (cached && cached.fingerprint === fingerprint) {
     stockIndexCacheStats.hits += 1;
@@ -66,16 +66,19 @@ export async function loadSolveStock(
     return { parts: cached.parts, key, fingerprint: cached.fingerprint };
   }
   stockIndexCacheStats.misses += 1;
-  // Each row comes with its hash, so the index is kept under the fingerprint of exactly the rows it
-  // was built from, whatever committed since the fingerprint above was taken.
-  const rows = await sequelize.query<PartRow & { row_hash: string }>(
-    `SELECT ${PART_ROW_COLUMNS}, hashtextextended(p::text, 0)::text AS row_hash FROM parts p ${options.location ? 'WHERE location = :location' : ''} ORDER BY kind, value_si, id`,
-    { type: QueryTypes.SELECT, replacements: { location: options.location }, transaction },
+  // The version beside the rows, from the same snapshot, so the index is kept under the version of
+  // exactly the rows it was built from, whatever committed since the fingerprint above was read.
+  // One row with no part when the location holds none.
+  const joined = await sequelize.query<PartRow & { stock_version: string; id: number | null }>(
+    `SELECT v.version::text AS stock_version, ${PART_ROW_COLUMNS}
+       FROM (SELECT coalesce((SELECT version FROM stock_versions WHERE location = :key), 0) AS version) v
+       LEFT JOIN parts p ON ${options.location ? 'p.location = :key' : 'true'}
+      ORDER BY p.kind, p.value_si, p.id`,
+    { type: QueryTypes.SELECT, replacements: { key }, transaction },
   );
-  let sum = 0n;
-  for (const row of rows) sum += BigInt(row.row_hash);
+  const rowsFingerprint = `v${joined[0]?.stock_version ?? '0'}`;
+  const rows = joined.filter((row) => row.id !== null);
   const parts: SnapPart[] = rows.map(presentPart);
-  const rowsFingerprint = `${rows.length}:${rows.length === 0 ? '0' : sum.toString()}`;
   cache.delete(key);
   cache.set(key, { fingerprint: rowsFingerprint, parts });
   while (cache.size > STOCK_INDEX_CACHE_ENTRIES) cache.delete(cache.keys().next().value!);
