@@ -279,9 +279,15 @@ export class FitCollector {
     if (fit.tier > this.thresholdTier || (fit.tier === this.thresholdTier && fit.lossKey > this.thresholdKey)) return;
     const entries = this.entries;
     if (entries.length === this.capacity && compareFits(fit, entries[entries.length - 1]) >= 0) return;
-    let at = entries.length;
-    while (at > 0 && compareFits(fit, entries[at - 1]) < 0) at--;
-    entries.splice(at, 0, fit);
+    // After every kept fit that ranks at or before it (binary search: windows hold up to 2,000).
+    let low = 0;
+    let high = entries.length;
+    while (low < high) {
+      const mid = (low + high) >>> 1;
+      if (compareFits(fit, entries[mid]) < 0) high = mid;
+      else low = mid + 1;
+    }
+    entries.splice(low, 0, fit);
     if (entries.length > this.capacity) entries.pop();
     if (entries.length === this.capacity) {
       const last = entries[entries.length - 1];
