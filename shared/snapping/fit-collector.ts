@@ -77,26 +77,109 @@ export function compareFits(a: FitCandidate, b: FitCandidate): number {
     compareNumbers(b.stockCover, a.stockCover) ||
     a.unknownCostParts - b.unknownCostParts ||
     compareNumbers(a.cost, b.cost) ||
-    (a.partKey < b.partKey ? -1 : a.partKey > b.partKey ? 1 : 0)
+    comparePartKeys(a.partKey, b.partKey)
   );
+}
+
+/** The last tie rule; a fit without its part key (a spread copy of a described fit) is a bug, never a tie. */
+function comparePartKeys(a: string, b: string): number {
+  if (typeof a !== 'string' || typeof b !== 'string') throw new Error('compareFits: a fit has no part key (copy fits with withLossKey, not a spread)');
+  return a < b ? -1 : a > b ? 1 : 0;
 }
 
 function compareNumbers(a: number, b: number): number {
   return a < b ? -1 : a > b ? 1 : 0;
 }
 
-/** A place a part fills in a fit. */
-interface Slot {
-  shunt: boolean;
-  /** 0 or 1: which place of the option. */
-  place: number;
-  c: KindCandidates;
-  candidate: number;
-}
-
 /** Uses `k` of one member cover `available / (k q)` builds; floor with a hair of slack against rounding. */
 function usesAt(available: number, cover: number, q: number): number {
   return Math.floor(available / (cover * q) + 1e-9);
+}
+
+/**
+ * Scratch space of {@link describeFit} (a fit has at most 4 places and 4 models), reused by every
+ * call so describing a fit allocates only the fit and its member lists: the searches describe tens
+ * of thousands of fits per solve, and garbage collection was a fifth of a worst-case solve.
+ * Places are in ladder order, source to load.
+ */
+const placeShunt = [false, false, false, false];
+const placeIndex = [0, 0, 0, 0];
+/** The model (index into the model arrays below) each place uses. */
+const placeModel = [0, 0, 0, 0];
+const modelCandidates: (KindCandidates | null)[] = [null, null, null, null];
+const modelCandidate = [0, 0, 0, 0];
+const modelUses = [0, 0, 0, 0];
+/** Members chosen for one model's places (at most 4), in the order they fill them. */
+const chosen = [0, 0, 0, 0];
+
+/**
+ * A described fit. The part key, the last tie rule, is a string of part numbers built only when a
+ * comparison reaches it (two fits tied on everything before it) or when it is read: most fits
+ * offered to a wide window never tie, so most are never built.
+ */
+class DescribedFit implements FitCandidate {
+  private key: string | null = null;
+
+  constructor(
+    private readonly problem: SnapProblem,
+    readonly tier: number,
+    readonly tpg: number,
+    readonly lossKey: number,
+    readonly shunt: SnapOption | null,
+    readonly series: SnapOption | null,
+    readonly shuntMembers: number[] | null,
+    readonly seriesMembers: number[] | null,
+    readonly partCount: number,
+    readonly frequencyRatio: number,
+    readonly stockCover: number,
+    readonly unknownCostParts: number,
+    readonly cost: number,
+  ) {}
+
+  get partKey(): string {
+    if (this.key === null) this.key = partKeyOf(this.problem, this.shunt, this.series, this.shuntMembers, this.seriesMembers);
+    return this.key;
+  }
+
+  /** The same fit ranked on another loss key (an objective's loss instead of the nominal one). */
+  withLossKey(lossKey: number): DescribedFit {
+    const fit = new DescribedFit(
+      this.problem,
+      this.tier,
+      this.tpg,
+      lossKey,
+      this.shunt,
+      this.series,
+      this.shuntMembers,
+      this.seriesMembers,
+      this.partCount,
+      this.frequencyRatio,
+      this.stockCover,
+      this.unknownCostParts,
+      this.cost,
+    );
+    fit.key = this.key;
+    return fit;
+  }
+}
+
+/**
+ * The fit ranked on `lossKey` instead of its own (objective-window.ts re-ranks the nominal search's
+ * fits by an objective). Use this, not a spread: a spread copy of a described fit has no part key.
+ */
+export function withLossKey(fit: FitCandidate, lossKey: number): FitCandidate {
+  return fit instanceof DescribedFit ? fit.withLossKey(lossKey) : { ...fit, lossKey };
+}
+
+/** The part numbers (with location and id) of each element, element by element in ladder order, then the arrangements. */
+function partKeyOf(problem: SnapProblem, shunt: SnapOption | null, series: SnapOption | null, shuntMembers: number[] | null, seriesMembers: number[] | null): string {
+  const elementKey = (c: KindCandidates | null, members: number[] | null) =>
+    members ? members.map((k) => c!.members.keys[k]).sort().join('\u0002') : null;
+  const shuntKey = elementKey(problem.shunt, shuntMembers);
+  const seriesKey = elementKey(problem.series, seriesMembers);
+  const keys = problem.placement === 'shunt-at-source' ? [shuntKey, seriesKey] : [seriesKey, shuntKey];
+  // Same parts in series and in parallel can tie on everything: the arrangement settles it last.
+  return `${keys.filter((k) => k !== null).join('\u0003')}\u0004${shunt ? shunt.arrangement : '-'}${series ? series.arrangement : '-'}`;
 }
 
 /**
@@ -112,36 +195,46 @@ function usesAt(available: number, cover: number, q: number): number {
  */
 export function describeFit(problem: SnapProblem, shunt: SnapOption | null, series: SnapOption | null, tpg: number, lossKey: number, partsTier: number): FitCandidate {
   const q = (problem.shunt ?? problem.series)!.buildQuantity;
-  const slots: Slot[] = [];
-  const addSlots = (option: SnapOption | null, c: KindCandidates | null, isShunt: boolean) => {
+  // Places in ladder order, source to load, and the models they use.
+  let places = 0;
+  let modelCount = 0;
+  const addPlaces = (option: SnapOption | null, c: KindCandidates | null, isShunt: boolean) => {
     if (!option || !c) return;
-    slots.push({ shunt: isShunt, place: 0, c, candidate: option.first });
-    if (option.arrangement !== SINGLE) slots.push({ shunt: isShunt, place: 1, c, candidate: option.second });
+    const count = option.arrangement === SINGLE ? 1 : 2;
+    for (let place = 0; place < count; place++) {
+      const candidate = place === 0 ? option.first : option.second;
+      let m = 0;
+      while (m < modelCount && !(modelCandidates[m] === c && modelCandidate[m] === candidate)) m++;
+      if (m === modelCount) {
+        modelCandidates[m] = c;
+        modelCandidate[m] = candidate;
+        modelUses[m] = 0;
+        modelCount++;
+      }
+      modelUses[m]++;
+      placeShunt[places] = isShunt;
+      placeIndex[places] = place;
+      placeModel[places] = m;
+      places++;
+    }
   };
-  // Ladder order, source to load.
   if (problem.placement === 'shunt-at-source') {
-    addSlots(shunt, problem.shunt, true);
-    addSlots(series, problem.series, false);
+    addPlaces(shunt, problem.shunt, true);
+    addPlaces(series, problem.series, false);
   } else {
-    addSlots(series, problem.series, false);
-    addSlots(shunt, problem.shunt, true);
-  }
-  // Models used, each with its places.
-  const models: { c: KindCandidates; candidate: number; slots: Slot[]; cover: number }[] = [];
-  for (const slot of slots) {
-    const found = models.find((m) => m.c === slot.c && m.candidate === slot.candidate);
-    if (found) found.slots.push(slot);
-    else models.push({ c: slot.c, candidate: slot.candidate, slots: [slot], cover: 0 });
+    addPlaces(series, problem.series, false);
+    addPlaces(shunt, problem.shunt, true);
   }
   let cover = Infinity;
-  for (const m of models) {
-    const start = m.c.memberStart[m.candidate];
-    const end = m.c.memberEnd[m.candidate];
-    const available = m.c.members.available;
-    const u = m.slots.length;
+  for (let m = 0; m < modelCount; m++) {
+    const c = modelCandidates[m]!;
+    const start = c.memberStart[modelCandidate[m]];
+    const end = c.memberEnd[modelCandidate[m]];
+    const available = c.members.available;
+    const u = modelUses[m];
     let best = 0;
     if (u === 1) {
-      for (let k = start; k < end; k++) if (available[k] >= q) best = Math.max(best, available[k] / q);
+      for (let k = start; k < end; k++) if (available[k] >= q && available[k] / q > best) best = available[k] / q;
     } else {
       for (let k = start; k < end; k++) {
         if (available[k] < q) continue;
@@ -154,61 +247,53 @@ export function describeFit(problem: SnapProblem, shunt: SnapOption | null, seri
         }
       }
     }
-    m.cover = best;
-    cover = Math.min(cover, best);
+    if (best < cover) cover = best;
   }
   let tier = partsTier;
   if (cover < 1) tier |= TIER_SHORT_STOCK;
-  const shuntMembers: number[] | null = shunt ? [] : null;
-  const seriesMembers: number[] | null = series ? [] : null;
+  const shuntMembers: number[] | null = shunt ? [0, 0].slice(0, shunt.arrangement === SINGLE ? 1 : 2) : null;
+  const seriesMembers: number[] | null = series ? [0, 0].slice(0, series.arrangement === SINGLE ? 1 : 2) : null;
   let cost = 0;
   let unknownCostParts = 0;
   let frequencyRatio = 0;
   let stockCover = Infinity;
-  for (const m of models) {
-    const start = m.c.memberStart[m.candidate];
-    const end = m.c.memberEnd[m.candidate];
-    const { available, costs, keys } = m.c.members;
-    let remaining = m.slots.length;
-    const chosen: number[] = [];
+  for (let m = 0; m < modelCount; m++) {
+    const c = modelCandidates[m]!;
+    const start = c.memberStart[modelCandidate[m]];
+    const end = c.memberEnd[modelCandidate[m]];
+    const { available, costs, keys } = c.members;
+    let remaining = modelUses[m];
+    let taken = 0;
     for (let k = start; k < end && remaining > 0; k++) {
       if (available[k] < q) continue;
       const take = Math.min(remaining, usesAt(available[k], cover, q));
       if (take <= 0) continue;
-      for (let t = 0; t < take; t++) chosen.push(k);
+      for (let t = 0; t < take; t++) chosen[taken++] = k;
       remaining -= take;
       if (Number.isFinite(costs[k])) cost += costs[k] * take;
       else unknownCostParts += take;
-      stockCover = Math.min(stockCover, available[k] / (take * q));
+      const covered = available[k] / (take * q);
+      if (covered < stockCover) stockCover = covered;
     }
-    chosen.sort((a, b) => (keys[a] < keys[b] ? -1 : keys[a] > keys[b] ? 1 : a - b));
-    m.slots.forEach((slot, i) => {
-      const list = slot.shunt ? shuntMembers! : seriesMembers!;
-      list[slot.place] = chosen[i];
-    });
-    frequencyRatio = Math.max(frequencyRatio, m.c.frequencyRatio[m.candidate]);
+    // Smallest key first, into the model's places in ladder order (insertion sort: at most 4).
+    for (let i = 1; i < taken; i++) {
+      const k = chosen[i];
+      let j = i - 1;
+      while (j >= 0 && (keys[chosen[j]] > keys[k] || (keys[chosen[j]] === keys[k] && chosen[j] > k))) {
+        chosen[j + 1] = chosen[j];
+        j--;
+      }
+      chosen[j + 1] = k;
+    }
+    for (let place = 0, i = 0; place < places; place++) {
+      if (placeModel[place] !== m) continue;
+      (placeShunt[place] ? shuntMembers! : seriesMembers!)[placeIndex[place]] = chosen[i++];
+    }
+    const ratio = c.frequencyRatio[modelCandidate[m]];
+    if (ratio > frequencyRatio) frequencyRatio = ratio;
+    modelCandidates[m] = null;
   }
-  const elementKey = (c: KindCandidates | null, members: number[] | null) =>
-    members ? members.map((k) => c!.members.keys[k]).sort().join('\u0002') : null;
-  const shuntKey = elementKey(problem.shunt, shuntMembers);
-  const seriesKey = elementKey(problem.series, seriesMembers);
-  const keys = problem.placement === 'shunt-at-source' ? [shuntKey, seriesKey] : [seriesKey, shuntKey];
-  return {
-    tier,
-    tpg,
-    lossKey,
-    shunt,
-    series,
-    shuntMembers,
-    seriesMembers,
-    partCount: slots.length,
-    frequencyRatio,
-    stockCover,
-    unknownCostParts,
-    cost,
-    // Same parts in series and in parallel can tie on everything: the arrangement settles it last.
-    partKey: `${keys.filter((k) => k !== null).join('\u0003')}\u0004${shunt ? shunt.arrangement : '-'}${series ? series.arrangement : '-'}`,
-  };
+  return new DescribedFit(problem, tier, tpg, lossKey, shunt, series, shuntMembers, seriesMembers, places, frequencyRatio, stockCover, unknownCostParts, cost);
 }
 
 /** A limit a collector starts with: only fits ranking at or before `(tier, lossKey)` are kept. */

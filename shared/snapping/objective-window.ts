@@ -27,7 +27,7 @@ import type { Objective } from '../api/matches.js';
 import { lossDb } from '../engine/abcd.js';
 import { bandLoss, type Band, worstCaseLoss } from '../engine/losses.js';
 import type { PortModel } from '../engine/port-model.js';
-import { compareFits, type FitCandidate, lossKeyOfDb } from './fit-collector.js';
+import { compareFits, type FitCandidate, lossKeyOfDb, withLossKey } from './fit-collector.js';
 import { fitModelLadder } from './fit-report.js';
 import { searchNominal } from './nominal-search.js';
 import type { SnapProblem } from './snap-problem.js';
@@ -78,7 +78,7 @@ function score(problem: SnapProblem, fits: readonly FitCandidate[], context: Obj
   return fits
     .map((fit) => {
       const objectiveDb = objectiveLossDb(problem, fit, context);
-      return { fit: { ...fit, lossKey: lossKeyOfDb(objectiveDb) }, objectiveDb };
+      return { fit: withLossKey(fit, lossKeyOfDb(objectiveDb)), objectiveDb };
     })
     .sort((a, b) => compareFits(a.fit, b.fit));
 }

@@ -11,7 +11,7 @@ import { bandAround } from '../../shared/engine/losses.js';
 import { seriesEquivalentPort } from '../../shared/engine/port-model.js';
 import { buildKindCandidates } from '../../shared/snapping/kind-candidates.js';
 import { searchExhaustive } from '../../shared/snapping/exhaustive-search.js';
-import { compareFits, lossKeyOfDb } from '../../shared/snapping/fit-collector.js';
+import { compareFits, lossKeyOfDb, withLossKey } from '../../shared/snapping/fit-collector.js';
 import { objectiveLossDb, rankByObjective } from '../../shared/snapping/objective-window.js';
 import { snapProblemFor } from '../../shared/snapping/snap-problem.js';
 import { buildStockIndex } from '../../shared/snapping/stock-index.js';
@@ -40,7 +40,7 @@ describe('objective windows equal exhaustive ranking by the objective', () => {
             const ranked = rankByObjective(problem, k, context);
             if (ranked.windowSize >= Math.max(4 * k, 12)) windowed++;
             const every = searchExhaustive(problem, 1_000_000)
-              .map((fit) => ({ ...fit, lossKey: lossKeyOfDb(objectiveLossDb(problem, fit, context)) }))
+              .map((fit) => withLossKey(fit, lossKeyOfDb(objectiveLossDb(problem, fit, context))))
               .sort(compareFits)
               .slice(0, k);
             expect(ranked.windowTruncated).toBe(false);
