@@ -14,7 +14,7 @@ describe('the API shell', () => {
   it('reports health with the database state', async () => {
     const res = await request(t.app).get('/api/health');
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ status: 'ok', database: 'up' });
+    expect(res.body).toEqual({ status: 'ok', database: 'up', solves: { threadsPerLane: expect.any(Number), single: { running: 0, queued: 0 }, combinations: { running: 0, queued: 0 } } });
   });
 
   it('sends helmet headers, including a same-origin content security policy', async () => {

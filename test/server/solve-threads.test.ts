@@ -5,7 +5,8 @@
  * answers from an index of stock it has not been sent (each stock change reaches every thread);
  * and the engine's refusals come back as the same EngineInputError, message and details; and a
  * single-part solve is answered while combination searches fill every thread (its own lane); and
- * the solve of a caller that closed its connection is given up, not run.
+ * the solve of a caller that closed its connection is given up, not run; and health shows each lane's
+ * running and queued solves.
  * The engine's numbers themselves are checked against outside sources in test/engine/.
  */
 import { readFileSync } from 'node:fs';
@@ -22,7 +23,7 @@ import { isEngineInputError } from '../../shared/engine/engine-input-error.js';
 import { snapMatch, type SnapSettings } from '../../shared/snapping/snap-match.js';
 import { buildStockIndex } from '../../shared/snapping/stock-index.js';
 import { loadSolveStock } from '../../server/services/matches/load-stock-index.js';
-import { closeSolvePool, laneOf, snapOnThread, solveCounts, solveThreads } from '../../server/services/matches/solve-pool.js';
+import { closeSolvePool, laneOf, snapOnThread, solveCounts, solveLoad, solveThreads } from '../../server/services/matches/solve-pool.js';
 import { readSettings } from '../../server/services/settings/read-settings.js';
 
 let t: TestApp;
@@ -110,6 +111,33 @@ describe('solves on worker threads', () => {
     // Asked last, behind twice as many searches as there are threads: in one queue it would wait
     // for n of them to end.
     expect(finished[0]).toBe('single');
+  });
+
+  it('show in health how many solves each lane runs and queues', async () => {
+    const stock = await loadSolveStock(t.sequelize, { location: null });
+    const s = await settings();
+    const search = parseSolveRequest({ source: 50, load: '12-j35', frequencyHz: '868MHz', bandwidthHz: '20MHz', combinations: true, objective: 'worst-case', fitsPerNetwork: 3 });
+    const n = solveThreads();
+    const idle = { threadsPerLane: n, single: { running: 0, queued: 0 }, combinations: { running: 0, queued: 0 } };
+    // Every combination thread started and idle, so the next searches go straight to one.
+    await Promise.all(Array.from({ length: n }, () => snapOnThread(search, s, {}, stock)));
+    expect((await request(t.app).get('/api/health')).body.solves).toEqual(idle);
+    // n + 2 searches: n run (a thread each) and 2 wait, counted before any can end.
+    const searches = Array.from({ length: n + 2 }, () => snapOnThread(search, s, {}, stock));
+    try {
+      expect(solveLoad()).toEqual({ threadsPerLane: n, single: { running: 0, queued: 0 }, combinations: { running: n, queued: 2 } });
+      // Through the route some may have ended meanwhile, but never more run than the lane has threads.
+      const health = await request(t.app).get('/api/health');
+      expect(health.status).toBe(200);
+      const { single, combinations } = health.body.solves;
+      expect(single).toEqual({ running: 0, queued: 0 });
+      expect(combinations.running).toBeLessThanOrEqual(n);
+      expect(combinations.running + combinations.queued).toBeLessThanOrEqual(n + 2);
+      if (combinations.queued > 0) expect(combinations.running).toBe(n);
+    } finally {
+      await Promise.all(searches);
+    }
+    expect((await request(t.app).get('/api/health')).body.solves).toEqual(idle);
   });
 
   it('give up the solve of a caller that closed its connection', async () => {

@@ -79,8 +79,8 @@ function workerModule(): string {
   return pathToFileURL(file).href;
 }
 
-/** Solves handed to a lane and not yet answered, and solves given up because their signal fired. */
-let inFlight = 0;
+/** Solves handed to each lane and not yet answered, and solves given up because their signal fired. */
+const inLane: Record<SolveLane, number> = { single: 0, combinations: 0 };
 let abandoned = 0;
 
 /** The module the threads run, bundled once per process. */
@@ -120,8 +120,9 @@ export async function snapOnThread(
   const task: SolveTask = { input, settings, options, stockKey: stock.key, fingerprint: stock.fingerprint };
   signal?.throwIfAborted();
   if (threads === 0) return answerOf(solveHere({ ...task, parts: stock.parts }));
-  const pool = solvePool(laneOf(input));
-  inFlight += 1;
+  const lane = laneOf(input);
+  const pool = solvePool(lane);
+  inLane[lane] += 1;
   try {
     let outcome = await pool.run(task, { signal });
     if (outcome.kind === 'need-stock') outcome = await pool.run({ ...task, parts: stock.parts }, { signal });
@@ -130,7 +131,7 @@ export async function snapOnThread(
     if (signal?.aborted) abandoned += 1;
     throw error;
   } finally {
-    inFlight -= 1;
+    inLane[lane] -= 1;
   }
 }
 
@@ -139,7 +140,25 @@ export async function snapOnThread(
  * (their caller went away), for the tests.
  */
 export function solveCounts(): { inFlight: number; abandoned: number } {
-  return { inFlight, abandoned };
+  return { inFlight: inLane.single + inLane.combinations, abandoned };
+}
+
+/** One lane's work now: solves running on its threads and solves waiting for one. */
+export interface LaneLoad {
+  running: number;
+  queued: number;
+}
+
+/**
+ * What the solve threads are doing now, per lane, for operators (the health route): the threads
+ * each lane may run (0: solves run on the event loop) and its running and queued solves.
+ */
+export function solveLoad(): { threadsPerLane: number; single: LaneLoad; combinations: LaneLoad } {
+  const load = (lane: SolveLane): LaneLoad => {
+    const queued = Math.min(inLane[lane], pools[lane]?.queueSize ?? 0);
+    return { running: inLane[lane] - queued, queued };
+  };
+  return { threadsPerLane: threads, single: load('single'), combinations: load('combinations') };
 }
 
 function answerOf(outcome: SolveOutcome): SnappedSolveResponse {
