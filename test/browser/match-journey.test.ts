@@ -53,6 +53,10 @@ describe('the match workspace', () => {
     expect((await saved).status()).toBe(201);
     const row = page.getByTestId('saved-match-row').filter({ hasText: name });
     await row.waitFor();
+    // The name is shown whole in the narrow panel (wrapped, not cut off with an ellipsis).
+    const nameBox = await row.locator('.name').evaluate((el) => ({ scroll: el.scrollWidth, client: el.clientWidth, text: el.textContent?.trim() }));
+    expect(nameBox.text).toBe(name);
+    expect(nameBox.scroll).toBeLessThanOrEqual(nameBox.client);
 
     // Reopen from a fresh page load: the saved match comes back with its fit and plot.
     await page.goto(`${baseUrl}/matches`);
