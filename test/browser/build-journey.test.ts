@@ -14,7 +14,7 @@ const baseUrl = inject('baseUrl');
 const mailDir = inject('mailDir');
 let b: BrowserSession;
 let matchId = 0;
-const buildName = `Weather node WN-1 ${Date.now()}`;
+const buildName = `Weather node WN-1, boards for the field trial ${Date.now()}`;
 const supplier = `orders-${Date.now()}@supplier.example`;
 
 async function api<T>(path: string, token: string, body?: unknown): Promise<T> {
@@ -67,6 +67,10 @@ describe('a build and its shortfall list', () => {
     await expect.poll(() => page.getByTestId('build-line').count()).toBeGreaterThan(0);
     await expect.poll(() => page.getByTestId('build-shortfall-line').count()).toBeGreaterThan(0);
     await screenshot(page, 'build-reserved');
+    // The list beside it shows the whole name (wrapped, not cut off with an ellipsis).
+    const nameBox = await page.getByTestId('build-row').filter({ hasText: buildName }).locator('.name').evaluate((el) => ({ scroll: el.scrollWidth, client: el.clientWidth, text: el.textContent?.trim() }));
+    expect(nameBox.text).toBe(buildName);
+    expect(nameBox.scroll).toBeLessThanOrEqual(nameBox.client);
     await page.getByTestId('sign-out').click();
   });
 

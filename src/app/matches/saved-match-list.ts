@@ -20,7 +20,7 @@ import type { SavedMatchSummary } from './saved-match.js';
         @for (match of matches(); track match.id) {
           <a
             mat-list-item
-            class="item"
+            class="sm-wrap-item"
             data-testid="saved-match-row"
             [attr.title]="match.name + ': ' + describe(match)"
             [attr.data-id]="match.id"
@@ -31,7 +31,7 @@ import type { SavedMatchSummary } from './saved-match.js';
           >
             <mat-icon matListItemIcon aria-hidden="true">bookmark</mat-icon>
             <span matListItemTitle class="name">{{ match.name }}</span>
-            <span matListItemLine class="line">{{ describe(match) }}</span>
+            <span matListItemLine class="line sm-wrap-line">{{ describe(match) }}</span>
             @if (match.partNumbers.length > 0) {
               <span matListItemLine class="line parts">{{ match.partNumbers.join(', ') }}</span>
             }
@@ -44,11 +44,6 @@ import type { SavedMatchSummary } from './saved-match.js';
     :host { display: block; }
     .empty { margin: 0; color: var(--mat-sys-on-surface-variant); }
     .line { font-variant-numeric: tabular-nums; }
-    /* Names and descriptions wrap rather than end in an ellipsis: the side panel is narrow. */
-    .item.mat-mdc-list-item { height: auto; padding-block: 10px; border-radius: 16px; }
-    .item .name, .item .line:not(.parts) { white-space: normal; overflow-wrap: anywhere; }
-    /* The description: two lines at most in the narrow panel; the row's title has all of it. */
-    .item .line:not(.parts) { display: -webkit-box; -webkit-box-orient: vertical; -webkit-line-clamp: 2; line-clamp: 2; }
     .parts { font-family: ui-monospace, 'DejaVu Sans Mono', monospace; font-size: 12px; }
   `,
 })
