@@ -56,6 +56,10 @@ describe('stock-list upload', () => {
     await signInAs(page, baseUrl, 'designer@tarnwick.example', DEMO_PASSWORD);
     await page.getByTestId('nav-stock').click();
     await page.getByTestId('stock-table').waitFor();
+    await page.locator('[data-testid="stock-table"] td.loss').first().waitFor();
+    // Every column in view at this window's width (1360 px): the table needs no sideways scroll.
+    const fit = await page.getByTestId('stock-table').evaluate((table) => ({ table: table.scrollWidth, frame: table.parentElement!.clientWidth }));
+    expect(fit.table).toBeLessThanOrEqual(fit.frame);
     await page.getByTestId('stock-search').fill('BRW-L-1');
     await page.getByTestId('stock-row-BRW-L-1@browser').waitFor();
     expect(await page.getByTestId('stock-tab-upload').count()).toBe(0);

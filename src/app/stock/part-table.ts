@@ -154,6 +154,12 @@ export class PartTable {
   protected readonly toleranceText = (part: PartItem) => toleranceText(part.kind, part.tolerance);
   protected readonly srfText = (part: PartItem) => frequencyText(part.srfHz);
   protected readonly lossText = lossText;
+
+  /** The loss text in pieces that never break inside ("Q 773", "@ 1 GHz"), so a narrow table wraps it between them. */
+  protected lossPieces(part: PartItem): string[] {
+    const [loss, at] = lossText(part).split(' @ ');
+    return at === undefined ? [loss] : [loss, `@ ${at}`];
+  }
   protected readonly ratingText = ratingText;
   protected readonly unitCostText = unitCostText;
 }
