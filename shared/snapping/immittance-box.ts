@@ -34,6 +34,19 @@ function consider(out: Float64Array, r: number, x: number): void {
   if (b > out[3]) out[3] = b;
 }
 
+/** The critical points of the edge `r = const` inside `(imLo, imHi)`: `x = 0` and `x = ±r`. */
+function considerEdgeR(out: Float64Array, r: number, imLo: number, imHi: number): void {
+  if (r !== 0 && 0 > imLo && 0 < imHi) consider(out, r, 0);
+  if (r !== 0 && r > imLo && r < imHi) consider(out, r, r);
+  if (r !== 0 && -r > imLo && -r < imHi) consider(out, r, -r);
+}
+
+/** The critical point of the edge `x = const` inside `(reLo, reHi)`: `r = |x|`. */
+function considerEdgeX(out: Float64Array, x: number, reLo: number, reHi: number): void {
+  const r = Math.abs(x);
+  if (r > reLo && r < reHi) consider(out, r, x);
+}
+
 /**
  * Bounding box of `{1/z : z in [reLo, reHi] x [imLo, imHi]}` into `out = [reLo', reHi', imLo', imHi']`,
  * for a box with `reLo >= 0`. `1/z = (r - jx)/(r^2 + x^2)` is holomorphic away from 0, so its real and
@@ -59,13 +72,11 @@ export function invertBox(reLo: number, reHi: number, imLo: number, imHi: number
   consider(out, reLo, imHi);
   consider(out, reHi, imLo);
   consider(out, reHi, imHi);
-  for (const r of [reLo, reHi]) {
-    for (const x of [0, r, -r]) if (x > imLo && x < imHi && (r !== 0 || x !== 0)) consider(out, r, x);
-  }
-  for (const x of [imLo, imHi]) {
-    const r = Math.abs(x);
-    if (r > reLo && r < reHi) consider(out, r, x);
-  }
+  // Unrolled (no array literals): this runs for every box the combination searches visit.
+  considerEdgeR(out, reLo, imLo, imHi);
+  if (reHi !== reLo) considerEdgeR(out, reHi, imLo, imHi);
+  considerEdgeX(out, imLo, reLo, reHi);
+  if (imHi !== imLo) considerEdgeX(out, imHi, reLo, reHi);
   const widenRe = INVERSION_SLACK * Math.max(Math.abs(out[0]), Math.abs(out[1]));
   const widenIm = INVERSION_SLACK * Math.max(Math.abs(out[2]), Math.abs(out[3]));
   out[0] -= widenRe;
