@@ -66,6 +66,17 @@ describe('the match workspace', () => {
     await page.getByTestId('tpg-plot').waitFor();
     await page.getByTestId('smith-chart').waitFor();
     await screenshot(page, 'match-reopened');
+
+    // Its designer deletes it, confirming once; it leaves the list and the workspace.
+    await page.getByTestId('match-delete').click();
+    await page.getByTestId('match-delete-confirm').waitFor();
+    await screenshot(page, 'match-delete-confirm');
+    const deleted = page.waitForResponse((r) => r.url().includes('/api/matches/') && r.request().method() === 'DELETE');
+    await page.getByTestId('match-delete-confirm').click();
+    expect((await deleted).status()).toBe(204);
+    await expect.poll(() => page.getByTestId('saved-match-row').filter({ hasText: name }).count()).toBe(0);
+    await expect.poll(() => page.getByTestId('reopened-match').count()).toBe(0);
+    expect(new URL(page.url()).searchParams.get('saved')).toBeNull();
   });
 
   it('stops a solve on its way: the browser drops the request and the form can solve again', async () => {

@@ -313,3 +313,61 @@ describe('saving and reopening a match', () => {
     );
   });
 });
+
+describe('deleting a saved match', () => {
+  const save = async (who: { token: string }, name: string) => {
+    const res = await as(who, request(t.app).post('/api/matches')).send({ name, request: REQUEST, chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 } });
+    expect(res.status).toBe(201);
+    return res.body as { id: number };
+  };
+  const remove = (who: { token: string } | null, id: number | string) => {
+    const r = request(t.app).delete(`/api/matches/${id}`);
+    return who ? as(who, r) : r;
+  };
+  const listed = async () => ((await as(designer, request(t.app).get('/api/matches?pageSize=100'))).body.items as { id: number }[]).map((m) => m.id);
+
+  beforeAll(async () => {
+    await clearStock(t.sequelize);
+    expect((await uploadStock(t.app, stores.token, STOCK)).status).toBe(200);
+  });
+
+  it('lets the designer who saved it delete it, audited with what it was, and it is gone', async () => {
+    const match = await save(designer, 'To be deleted');
+    const res = await remove(designer, match.id);
+    expect(res.status).toBe(204);
+    expect(await listed()).not.toContain(match.id);
+    expect((await as(designer, request(t.app).get(`/api/matches/${match.id}`))).status).toBe(404);
+    const [audit] = await t.sequelize.query<{ actor_id: number; before: { name: string; placement: string; rank: number } }>(
+      "SELECT actor_id, before FROM audit_entries WHERE action = 'match.delete' AND entity_id = :id",
+      { type: QueryTypes.SELECT, replacements: { id: String(match.id) } },
+    );
+    expect(audit).toMatchObject({ actor_id: designer.id, before: { name: 'To be deleted', placement: 'shunt-at-source', rank: 1 } });
+    expect((await remove(designer, match.id)).status).toBe(404);
+  });
+
+  it("refuses another designer's match with 403, lets an admin delete any, and other roles none", async () => {
+    const other = await t.addUser('designer');
+    const match = await save(designer, 'Not yours');
+    const refused = await remove(other, match.id);
+    expect(refused.status).toBe(403);
+    expect(refused.body.error.message).toMatch(/designer who saved this match, or an admin/);
+    for (const who of [stores, purchasing]) expect((await remove(who, match.id)).status).toBe(403);
+    expect((await remove(null, match.id)).status).toBe(401);
+    expect(await listed()).toContain(match.id);
+    expect((await remove(admin, match.id)).status).toBe(204);
+    expect(await listed()).not.toContain(match.id);
+    expect((await remove(admin, 'abc')).status).toBe(400);
+  });
+
+  it('leaves a build planned with it readable, with the match as it was planned', async () => {
+    const match = await save(designer, 'Carried by a build');
+    const build = await as(designer, request(t.app).post('/api/builds')).send({ name: 'Board with a deleted match', quantity: 2, matchIds: [match.id] });
+    expect(build.status).toBe(201);
+    const before = await as(designer, request(t.app).get(`/api/builds/${build.body.id}`));
+    expect((await remove(designer, match.id)).status).toBe(204);
+    const after = await as(designer, request(t.app).get(`/api/builds/${build.body.id}`));
+    expect(after.status).toBe(200);
+    expect(after.body.matches).toEqual(before.body.matches);
+    expect(after.body.matches[0]).toMatchObject({ matchId: match.id, name: 'Carried by a build' });
+  });
+});

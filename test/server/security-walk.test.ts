@@ -44,6 +44,7 @@ const RULES: Record<string, Rule> = {
   'GET /api/matches': { roles: ALL },
   'GET /api/matches/:id': { roles: ALL },
   'POST /api/matches': { roles: ['designer', 'admin'] },
+  'DELETE /api/matches/:id': { roles: ['designer', 'admin'] },
   'GET /api/matches/:id/touchstone': { roles: ALL },
   'GET /api/builds': { roles: ALL },
   'GET /api/builds/:id': { roles: ALL },

@@ -1,6 +1,7 @@
 /**
  * Matches (api.md "Matches"): `POST /api/matches/solve` (any role, saves nothing), `POST /api/matches`
- * (designer or admin), `GET /api/matches` and `GET /api/matches/:id` (any role).
+ * (designer or admin), `GET /api/matches` and `GET /api/matches/:id` (any role); beside api.md,
+ * `DELETE /api/matches/:id` (the designer who saved it, or an admin) -> 204.
  */
 import { Router } from 'express';
 import type { SolveRequest } from '../../../shared/api/matches.js';
@@ -10,6 +11,7 @@ import { badRequest } from '../../errors.js';
 import { parseRequest } from '../../validation.js';
 import { listMatches, readMatch } from '../../services/matches/read-matches.js';
 import { saveMatch } from '../../services/matches/save-match.js';
+import { deleteMatch } from '../../services/matches/delete-match.js';
 import { solveMatch } from '../../services/matches/solve-match.js';
 import { listMatchesSchema, saveMatchSchema } from './matches-request.js';
 
@@ -48,9 +50,19 @@ export function matchesRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id', async (req, res) => {
-    const id = Number(req.params.id);
-    if (!Number.isInteger(id) || id <= 0) throw badRequest(`A match id must be a positive whole number, got "${req.params.id}".`, [{ field: 'id', value: req.params.id, message: 'not a positive whole number' }]);
-    res.json(await readMatch(ctx.sequelize, id));
+    res.json(await readMatch(ctx.sequelize, matchId(String(req.params.id))));
+  });
+
+  router.delete('/:id', requireRole('designer', 'admin'), async (req, res) => {
+    await deleteMatch(ctx.sequelize, req.currentUser!, matchId(String(req.params.id)));
+    res.status(204).end();
   });
   return router;
+}
+
+/** A match id from the path. @throws 400 unless it is a positive whole number */
+function matchId(text: string): number {
+  const id = Number(text);
+  if (!Number.isInteger(id) || id <= 0) throw badRequest(`A match id must be a positive whole number, got "${text}".`, [{ field: 'id', value: text, message: 'not a positive whole number' }]);
+  return id;
 }

@@ -48,6 +48,11 @@ export class MatchClient {
   }
 
   /** One saved match with its inputs, chosen fit, results and sweep (`GET /api/matches/:id`). */
+  /** Deletes a saved match (the designer who saved it, or an admin); builds keep their own copy. */
+  delete(id: number): Observable<void> {
+    return this.http.delete<void>(`/api/matches/${encodeURIComponent(id)}`);
+  }
+
   open(id: number | string): Observable<SavedMatch> {
     return this.http.get<SavedMatch>(`/api/matches/${encodeURIComponent(id)}`);
   }

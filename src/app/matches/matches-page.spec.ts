@@ -37,9 +37,9 @@ describe('MatchesPage', () => {
   let backend: HttpTestingController;
   let page: HTMLElement;
 
-  async function open(role: Role = 'designer', saved: SavedMatchSummary[] = []): Promise<void> {
+  async function open(role: Role = 'designer', saved: SavedMatchSummary[] = [], userId = 7): Promise<void> {
     localStorage.clear();
-    storeSession(demoUser(role));
+    storeSession(demoUser(role, userId));
     TestBed.configureTestingModule({
       providers: [
         provideRouter([{ path: 'sign-in', component: BlankPage }]),
@@ -249,12 +249,10 @@ describe('MatchesPage', () => {
     expect(all('network-card').length).toBe(0);
   });
 
-  it('reopens a saved match as saved, with its sweep, and notes what changed in stock', async () => {
-    await open('purchasing', SAVED_LIST);
-    fixture.componentRef.setInput('saved', '11');
-    await fixture.whenStable();
+  /** The saved match 11 (SAVED_LIST[0], saved by user 7) as the server sends it. */
+  function savedDetail(): SavedMatch {
     const network = SOLVED.networks[0];
-    const detail: SavedMatch = {
+    return {
       ...SAVED_LIST[0],
       request: { source: '50', load: '12-j35', frequencyHz: '868MHz' },
       network: { ...network, fits: [] },
@@ -269,8 +267,19 @@ describe('MatchesPage', () => {
       },
       stockChanges: [{ partId: 2, partNumber: 'TW-L0402-10N', change: 'short' }],
     };
-    backend.expectOne({ method: 'GET', url: '/api/matches/11' }).flush(detail);
+  }
+
+  /** Opens the page as `role` (user `userId`) with saved match 11 reopened. */
+  async function reopen(role: Role, userId = 7): Promise<void> {
+    await open(role, SAVED_LIST, userId);
+    fixture.componentRef.setInput('saved', '11');
     await fixture.whenStable();
+    backend.expectOne({ method: 'GET', url: '/api/matches/11' }).flush(savedDetail());
+    await fixture.whenStable();
+  }
+
+  it('reopens a saved match as saved, with its sweep, and notes what changed in stock', async () => {
+    await reopen('purchasing');
 
     expect(page.querySelector('[data-testid="reopened-match"]')?.textContent).toContain('Soil node 868 MHz chip antenna');
     expect(page.querySelector('[data-testid="reopened-match"]')?.textContent).toContain('by Dev Okafor');
@@ -290,5 +299,48 @@ describe('MatchesPage', () => {
     // Purchasing may read saved matches but not save them.
     expect(all('match-save').length).toBe(0);
     expect(page.querySelector('[data-testid="match-save-role"]')).not.toBeNull();
+  });
+
+  it('lets the designer who saved a match delete it, once confirmed, and lists the rest', async () => {
+    await reopen('designer');
+    await (await button('match-delete')).click();
+    expect(page.querySelector('[data-testid="match-delete-area"]')?.textContent).toContain('Builds that carry it keep their own copy');
+    // Nothing is sent until the second press.
+    backend.expectNone({ method: 'DELETE' });
+    await (await button('match-delete-confirm')).click();
+    const deletion = backend.expectOne({ method: 'DELETE', url: '/api/matches/11' });
+    deletion.flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    const list = await vi.waitFor(() => backend.expectOne({ method: 'GET', url: '/api/matches' }));
+    list.flush({ items: SAVED_LIST.slice(1), total: SAVED_LIST.length - 1 });
+    await fixture.whenStable();
+    expect(all('saved-match-row').map((row) => row.dataset['id'])).toEqual(SAVED_LIST.slice(1).map((m) => String(m.id)));
+  });
+
+  it('keeps the match when "Keep it" is pressed, and shows why a delete failed next to the button', async () => {
+    await reopen('admin', 9);
+    await (await button('match-delete')).click();
+    await (await button('match-delete-keep')).click();
+    expect(all('match-delete-confirm').length).toBe(0);
+    backend.expectNone({ method: 'DELETE' });
+    await (await button('match-delete')).click();
+    await (await button('match-delete-confirm')).click();
+    backend
+      .expectOne({ method: 'DELETE', url: '/api/matches/11' })
+      .flush({ error: { code: 'not_found', message: 'Saved match 11 was not found.' } }, { status: 404, statusText: 'Not Found' });
+    await fixture.whenStable();
+    // Someone deleted it meanwhile: the server's reason, next to the button.
+    await vi.waitFor(() => {
+      fixture.detectChanges();
+      expect(page.querySelector('[data-testid="match-delete-error"]')?.textContent).toContain('Saved match 11 was not found.');
+    });
+  });
+
+  it('offers no delete to another designer, nor to purchasing', async () => {
+    await reopen('designer', 8);
+    expect(all('match-delete').length).toBe(0);
+    TestBed.resetTestingModule();
+    await reopen('purchasing');
+    expect(all('match-delete').length).toBe(0);
   });
 });

@@ -221,6 +221,39 @@ export class MatchesPage {
     }
   }
 
+  /** Whether the signed-in user may delete the open saved match: the designer who saved it, or an admin. */
+  protected readonly mayDelete = computed(() => {
+    const user = this.session.currentUser();
+    const detail = this.reopened();
+    if (!user || !detail) return false;
+    return user.role === 'admin' || (user.role === 'designer' && detail.createdBy?.id === user.id);
+  });
+  /** Whether the delete button has been pressed once and waits to be confirmed (reset when another match opens). */
+  protected readonly confirmingDelete = linkedSignal({ source: this.saved, computation: () => false });
+  protected readonly deleting = signal(false);
+  protected readonly deleteFailure = linkedSignal<string | undefined, string | null>({ source: this.saved, computation: () => null });
+
+  /** Deletes the open saved match, once confirmed, and closes it. */
+  protected async deleteSaved(): Promise<void> {
+    const id = this.openId();
+    const name = this.reopened()?.name ?? 'the saved match';
+    if (id === null || this.deleting()) return;
+    this.deleting.set(true);
+    this.deleteFailure.set(null);
+    try {
+      await firstValueFrom(this.client.delete(id));
+      this.reloadSavedMatches();
+      this.snackBar.open(`Deleted “${name}”.`, 'Close', { duration: NOTICE_MS });
+      await this.router.navigate([], { queryParams: { saved: null }, queryParamsHandling: 'merge' });
+    } catch (error: unknown) {
+      this.deleteFailure.set(
+        isAnnouncedByInterceptor(error) ? 'The match was not deleted.' : apiErrorMessage(error, 'The match was not deleted, and the server did not say why.'),
+      );
+    } finally {
+      this.deleting.set(false);
+    }
+  }
+
   protected reloadSavedMatches(): void {
     this.listVersion.update((version) => version + 1);
   }
