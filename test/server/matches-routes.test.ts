@@ -371,3 +371,37 @@ describe('deleting a saved match', () => {
     expect(after.body.matches[0]).toMatchObject({ matchId: match.id, name: 'Carried by a build' });
   });
 });
+
+describe('finding saved matches by name', () => {
+  // The reference stock from the blocks above stays (a build there holds some of it).
+  beforeAll(async () => {
+    await t.sequelize.query('DELETE FROM matches');
+    for (const name of ['Gateway 40.68 MHz link', 'Soil node 868 MHz', 'soil node 915 MHz', 'Odd 100%_match']) {
+      const res = await as(designer, request(t.app).post('/api/matches')).send({ name, request: REQUEST, chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 } });
+      expect(res.status).toBe(201);
+    }
+  });
+  const names = async (query: string) => {
+    const res = await as(purchasing, request(t.app).get(`/api/matches?${query}`));
+    expect(res.status).toBe(200);
+    return { names: (res.body.items as { name: string }[]).map((m) => m.name), total: res.body.total as number };
+  };
+
+  it('keeps the names holding the search text, in any case, newest first, with their total', async () => {
+    expect(await names('search=SOIL%20NODE')).toEqual({ names: ['soil node 915 MHz', 'Soil node 868 MHz'], total: 2 });
+    expect(await names('search=soil&pageSize=1')).toEqual({ names: ['soil node 915 MHz'], total: 2 });
+    expect(await names('search=%20%20')).toEqual({ names: expect.any(Array), total: 4 });
+    expect(await names('search=nothing%20like%20it')).toEqual({ names: [], total: 0 });
+  });
+
+  it('reads % and _ in the search as themselves, not as wildcards', async () => {
+    expect(await names(`search=${encodeURIComponent('%_')}`)).toEqual({ names: ['Odd 100%_match'], total: 1 });
+    expect(await names(`search=${encodeURIComponent('_')}`)).toEqual({ names: ['Odd 100%_match'], total: 1 });
+  });
+
+  it('refuses a search longer than 200 characters with 400 naming it', async () => {
+    const res = await as(designer, request(t.app).get(`/api/matches?search=${'x'.repeat(201)}`));
+    expect(res.status).toBe(400);
+    expect(res.body.error.details[0].field).toBe('search');
+  });
+});

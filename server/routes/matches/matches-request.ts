@@ -19,9 +19,10 @@ export const saveMatchSchema = z
 /** Largest page of `GET /api/matches`. */
 export const MAX_MATCH_PAGE_SIZE = 200;
 
-/** `GET /api/matches?page=&pageSize=`. */
+/** `GET /api/matches?page=&pageSize=&search=` (`search`: part of the name, any case). */
 export const listMatchesSchema = z
   .object({
+    search: z.string().max(200, 'search is at most 200 characters').optional(),
     page: z.coerce.number({ message: 'page must be a whole number from 1' }).int().min(1).default(1),
     pageSize: z.coerce.number({ message: `pageSize must be a whole number from 1 to ${MAX_MATCH_PAGE_SIZE}` }).int().min(1).max(MAX_MATCH_PAGE_SIZE).default(50),
   })

@@ -38,7 +38,7 @@ export function matchesRouter(ctx: AppContext): Router {
 
   router.get('/', async (req, res) => {
     const query = parseRequest(listMatchesSchema, req.query, 'match list query');
-    res.json(await listMatches(query.page, query.pageSize));
+    res.json(await listMatches(query.page, query.pageSize, query.search));
   });
 
   router.post('/', requireRole('designer', 'admin'), async (req, res) => {

@@ -1,8 +1,9 @@
 /** Reading saved matches: the list (newest first, a page at a time) and one match with its plots. */
-import type { Sequelize, Transaction } from 'sequelize';
+import { Op, type Sequelize, type Transaction } from 'sequelize';
 import type { SavedMatchDetail, SavedMatchListResponse } from '../../../shared/snapping/saved-match.js';
 import { notFound } from '../../errors.js';
 import { Match, User } from '../../models/index.js';
+import { containsPattern } from '../sql-like.js';
 import { presentMatchDetail, presentMatchSummary } from './present-match.js';
 
 async function usersById(ids: (number | null)[], transaction?: Transaction): Promise<Map<number, User>> {
@@ -11,9 +12,15 @@ async function usersById(ids: (number | null)[], transaction?: Transaction): Pro
   return new Map(users.map((u) => [u.id, u]));
 }
 
-/** A page of saved matches, newest first. */
-export async function listMatches(page: number, pageSize: number): Promise<SavedMatchListResponse> {
-  const { rows, count } = await Match.findAndCountAll({ order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: pageSize, offset: (page - 1) * pageSize });
+/** A page of saved matches, newest first; with `search`, only those whose name holds it (any case). */
+export async function listMatches(page: number, pageSize: number, search?: string): Promise<SavedMatchListResponse> {
+  const text = search?.trim();
+  const { rows, count } = await Match.findAndCountAll({
+    where: text ? { name: { [Op.iLike]: containsPattern(text) } } : {},
+    order: [['createdAt', 'DESC'], ['id', 'DESC']],
+    limit: pageSize,
+    offset: (page - 1) * pageSize,
+  });
   const users = await usersById(rows.map((m) => m.createdBy));
   return { items: rows.map((m) => presentMatchSummary(m, m.createdBy === null ? null : (users.get(m.createdBy) ?? null))), total: count };
 }

@@ -7,6 +7,7 @@ import type { PartItem, PartKind, PartListResponse, PartSortField } from '../../
 import { parseValue } from '../../../shared/engine/value-parse.js';
 import { notFound } from '../../errors.js';
 import { PART_ROW_COLUMNS, presentPart, type PartRow } from './present-part.js';
+import { containsPattern } from '../sql-like.js';
 
 /** A checked query of {@link listParts}. */
 export interface PartQuery {
@@ -35,9 +36,6 @@ const SORT_SQL: Readonly<Record<PartSortField, string>> = {
 /** Relative slack when a search text that reads as a value is matched against stored doubles. */
 const VALUE_MATCH_RELATIVE = 1e-9;
 
-function likePattern(text: string): string {
-  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-}
 
 /** The value a search text names, when it reads as one (`4p7`, `12nH`, `2.2 pF`); needs a digit. */
 function searchValue(text: string, kind: PartKind): number | null {
@@ -67,7 +65,7 @@ export async function listParts(sequelize: Sequelize, query: PartQuery): Promise
   const search = query.search?.trim();
   if (search) {
     const alternatives = ["part_number ILIKE :like", "manufacturer_part ILIKE :like", "description ILIKE :like", "package ILIKE :like"];
-    replacements.like = likePattern(search);
+    replacements.like = containsPattern(search);
     for (const kind of ['capacitor', 'inductor'] as const) {
       const value = searchValue(search, kind);
       if (value === null) continue;
