@@ -60,6 +60,9 @@ describe('the match workspace', () => {
 
     // Reopen from a fresh page load: the saved match comes back with its fit and plot.
     await page.goto(`${baseUrl}/matches`);
+    // Found by part of its name, in another case.
+    await page.getByTestId('saved-search').fill(name.slice(0, 12).toUpperCase());
+    await expect.poll(() => page.getByTestId('saved-match-row').filter({ hasText: name }).count()).toBe(1);
     await page.getByTestId('saved-match-row').filter({ hasText: name }).click();
     await page.getByTestId('reopened-match').waitFor();
     expect((await page.getByTestId('reopened-match').textContent()) ?? '').toContain(name);

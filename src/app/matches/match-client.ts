@@ -25,6 +25,12 @@ export class MatchClient {
    * The saved matches (`GET /api/matches`). api.md does not fix the list's envelope, so both a bare
    * array and the `{items}` envelope of the other list routes are read.
    */
+  /** The newest saved matches whose name holds `search` (any case; all when blank), with how many there are in all. */
+  find(search: string): Observable<{ items: SavedMatchSummary[]; total: number }> {
+    const params = search.trim() ? { search: search.trim() } : undefined;
+    return this.http.get<{ items: SavedMatchSummary[]; total: number }>('/api/matches', { params });
+  }
+
   list(): Observable<SavedMatchSummary[]> {
     return this.http.get<SavedMatchSummary[] | { items: SavedMatchSummary[] }>('/api/matches').pipe(
       map((answer) => {

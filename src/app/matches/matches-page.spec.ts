@@ -37,7 +37,7 @@ describe('MatchesPage', () => {
   let backend: HttpTestingController;
   let page: HTMLElement;
 
-  async function open(role: Role = 'designer', saved: SavedMatchSummary[] = [], userId = 7): Promise<void> {
+  async function open(role: Role = 'designer', saved: SavedMatchSummary[] = [], userId = 7, total = saved.length): Promise<void> {
     localStorage.clear();
     storeSession(demoUser(role, userId));
     TestBed.configureTestingModule({
@@ -52,7 +52,7 @@ describe('MatchesPage', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     page = fixture.nativeElement;
     fixture.detectChanges();
-    backend.expectOne({ method: 'GET', url: '/api/matches' }).flush({ items: saved, total: saved.length });
+    backend.expectOne({ method: 'GET', url: '/api/matches' }).flush({ items: saved, total });
     await fixture.whenStable();
   }
 
@@ -342,5 +342,23 @@ describe('MatchesPage', () => {
     TestBed.resetTestingModule();
     await reopen('purchasing');
     expect(all('match-delete').length).toBe(0);
+  });
+
+  it('finds saved matches by name after a pause in typing, and says when the list shows only the newest', async () => {
+    await open('designer', SAVED_LIST, 7, 75);
+    expect(page.querySelector('[data-testid="saved-more"]')?.textContent).toContain(`The newest ${SAVED_LIST.length} of 75`);
+    await (await field('saved-search')).setValue('soil');
+    const found = await vi.waitFor(() => backend.expectOne((r) => r.method === 'GET' && r.url === '/api/matches' && r.params.get('search') === 'soil'));
+    found.flush({ items: SAVED_LIST.slice(0, 1), total: 1 });
+    await fixture.whenStable();
+    expect(all('saved-match-row').length).toBe(1);
+    expect(page.querySelector('[data-testid="saved-more"]')).toBeNull();
+    await (await field('saved-search')).setValue('no such');
+    const none = await vi.waitFor(() => backend.expectOne((r) => r.method === 'GET' && r.params.get('search') === 'no such'));
+    none.flush({ items: [], total: 0 });
+    await vi.waitFor(() => {
+      fixture.detectChanges();
+      expect(page.querySelector('[data-testid="saved-search-none"]')?.textContent).toContain('No saved match has “no such” in its name.');
+    });
   });
 });

@@ -9,7 +9,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
-import { firstValueFrom } from 'rxjs';
+import { debounceTime, distinctUntilChanged, firstValueFrom } from 'rxjs';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 
 import type { SolveRequest, SolveResponse } from '../../../shared/api/matches.js';
 import { type SolveInput, isEngineInputError, parseSolveRequest } from '../../../shared/engine/index.js';
@@ -46,6 +47,9 @@ export function defaultChoice(solution: SolveResponse | undefined, preferred: Ch
  * cautions), saving the chosen fit under a name, and the saved matches, which reopen with their
  * results (`?saved=<id>`).
  */
+/** Pause in typing before the saved-match search is sent, ms. */
+const SEARCH_PAUSE_MS = 250;
+
 @Component({
   selector: 'sm-matches-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -94,9 +98,20 @@ export class MatchesPage {
   );
   /** Bumped to fetch the saved matches again. */
   private readonly listVersion = signal(0);
-  protected readonly savedList = latestAnswer(this.listVersion, () => this.client.list());
+  /** What the saved-match search box holds, and the same after a pause in typing. */
+  protected readonly savedSearchText = signal('');
+  private readonly savedSearch = toSignal(toObservable(this.savedSearchText).pipe(debounceTime(SEARCH_PAUSE_MS), distinctUntilChanged()), {
+    initialValue: '',
+  });
+  protected readonly savedList = latestAnswer(
+    computed(() => ({ version: this.listVersion(), search: this.savedSearch() })),
+    ({ search }) => this.client.find(search),
+  );
   /** The saved matches (empty while they are fetched). */
-  protected readonly savedMatches = computed((): SavedMatchSummary[] => answerOf(this.savedList()) ?? []);
+  protected readonly savedMatches = computed((): SavedMatchSummary[] => answerOf(this.savedList())?.items ?? []);
+  /** How many saved matches the search finds in all (the list shows the newest page of them). */
+  protected readonly savedTotal = computed(() => answerOf(this.savedList())?.total ?? 0);
+  protected readonly savedSearchActive = computed(() => this.savedSearch().trim() !== '');
   /** Why the saved match could not be opened. */
   protected readonly savedMatchFailure = computed(() =>
     apiErrorMessage(failureOf(this.savedMatch()), 'The saved match could not be opened, and the server did not say why.'),
