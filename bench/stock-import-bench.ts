@@ -9,11 +9,13 @@
  * Four import cases: all rows new; the same file again in replace mode (nothing changes); every
  * count changed (merge); then a daily list in which 1 % of the counts changed (merge).
  *
- * Three more lines say where the rest goes, measured in the same run: PostgreSQL's own COPY of the
+ * More lines say where the rest goes, measured in the same run: PostgreSQL's own COPY of the
  * same parts, already typed, into a table shaped like `parts` (its constraints and indexes), which
  * is the least any import that stores them there can cost; the same for the first import's change
  * rows into a table shaped like `stock_import_changes` (the per-part history the import keeps), so
- * the two together are the floor of an import of new parts; and reading and checking the file in
+ * the two together are the floor of an import of new parts; the same parts into their typed
+ * columns and checks with no index, then with the primary key alone (the least any store of typed,
+ * addressable parts can cost, whatever its other indexes); and reading and checking the file in
  * JavaScript alone (readStockFile on the same bytes, no database).
  * A report, never a test. Run: npx tsx bench/stock-import-bench.ts
  */
@@ -118,8 +120,18 @@ async function copyOnce(databaseUrl: string, csv: Buffer): Promise<number> {
   }
 }
 
-/** PostgreSQL's COPY of what `COPY table (columns) TO` gives into an empty `LIKE table INCLUDING ALL` with the same fillfactor. */
-async function copyIntoShapeOf(client: pg.Client, table: string, columns: string, where = ''): Promise<number> {
+/**
+ * PostgreSQL's COPY of what `COPY table (columns) TO` gives into an empty `LIKE table` with the same
+ * fillfactor: by default INCLUDING ALL (constraints and indexes); `shape` gives other LIKE options
+ * and statements to run on the new table `bench_shape` before the COPY.
+ */
+async function copyIntoShapeOf(
+  client: pg.Client,
+  table: string,
+  columns: string,
+  where = '',
+  shape: { including: string; then?: string } = { including: 'INCLUDING ALL' },
+): Promise<number> {
   const pieces: Buffer[] = [];
   const source = where ? `(SELECT ${columns} FROM ${table} WHERE ${where})` : `${table} (${columns})`;
   for await (const piece of client.query(copyTo(`COPY ${source} TO STDOUT`))) pieces.push(piece as Buffer);
@@ -131,7 +143,8 @@ async function copyIntoShapeOf(client: pg.Client, table: string, columns: string
     )
   ).rows[0].f;
   await client.query('DROP TABLE IF EXISTS bench_shape');
-  await client.query(`CREATE TABLE bench_shape (LIKE ${table} INCLUDING ALL)${fillfactor ? ` WITH (fillfactor = ${Number(fillfactor)})` : ''}`);
+  await client.query(`CREATE TABLE bench_shape (LIKE ${table} ${shape.including})${fillfactor ? ` WITH (fillfactor = ${Number(fillfactor)})` : ''}`);
+  if (shape.then) await client.query(shape.then);
   const start = performance.now();
   await pipeline(Readable.from([text]), client.query(copyFrom(`COPY bench_shape (${columns}) FROM STDIN`)));
   const ms = performance.now() - start;
@@ -144,17 +157,19 @@ async function copyIntoShapeOf(client: pg.Client, table: string, columns: string
  * stored them into a table shaped like `parts` (its constraints and indexes), and the change rows
  * of the import `importId` into one shaped like `stock_import_changes`.
  */
-async function copyIntoStoredShapes(databaseUrl: string, importId: number): Promise<{ parts: number; changes: number }> {
+async function copyIntoStoredShapes(databaseUrl: string, importId: number): Promise<{ parts: number; changes: number; typed: number; keyed: number }> {
   const client = new pg.Client({ connectionString: databaseUrl });
   await client.connect();
   try {
-    const parts = await copyIntoShapeOf(
-      client,
-      'parts',
-      'part_number, location, kind, value_si, tolerance_kind, tolerance_value, srf_hz, q, q_frequency_hz, esr_ohm, quantity, package, voltage_rating_v, current_rating_a, series, unit_cost, manufacturer_part, description',
-    );
+    const columns =
+      'part_number, location, kind, value_si, tolerance_kind, tolerance_value, srf_hz, q, q_frequency_hz, esr_ohm, quantity, package, voltage_rating_v, current_rating_a, series, unit_cost, manufacturer_part, description';
+    const parts = await copyIntoShapeOf(client, 'parts', columns);
     const changes = await copyIntoShapeOf(client, 'stock_import_changes', 'import_id, part_id, change, quantity_before, quantity_after, before, after', `import_id = ${Number(importId)}`);
-    return { parts, changes };
+    // The least a store of these parts can be: their typed columns and checks, no index; then with
+    // nothing but the primary key that reservations and the history point at.
+    const typed = await copyIntoShapeOf(client, 'parts', columns, '', { including: 'INCLUDING DEFAULTS INCLUDING CONSTRAINTS' });
+    const keyed = await copyIntoShapeOf(client, 'parts', columns, '', { including: 'INCLUDING DEFAULTS INCLUDING CONSTRAINTS', then: 'ALTER TABLE bench_shape ADD PRIMARY KEY (id)' });
+    return { parts, changes, typed, keyed };
   } finally {
     await client.end();
   }
@@ -203,6 +218,8 @@ async function main(): Promise<void> {
     const updateMs: number[] = [];
     const shapeMs: number[] = [];
     const changesShapeMs: number[] = [];
+    const typedMs: number[] = [];
+    const keyedMs: number[] = [];
     const readMs: number[] = [];
     for (let run = 0; run < RUNS; run += 1) {
       copyMs.push(await copyOnce(databaseUrl, csv));
@@ -214,6 +231,8 @@ async function main(): Promise<void> {
       const shapes = await copyIntoStoredShapes(databaseUrl, Number(fresh.body.importId));
       shapeMs.push(shapes.parts);
       changesShapeMs.push(shapes.changes);
+      typedMs.push(shapes.typed);
+      keyedMs.push(shapes.keyed);
       const same = await uploadOnce(url, token, csv, 'replace');
       if (same.body.unchanged !== ROWS) throw new Error(`expected ${ROWS} unchanged, got ${JSON.stringify(same.body).slice(0, 300)}`);
       sameMs.push(same.ms);
@@ -238,6 +257,8 @@ async function main(): Promise<void> {
     console.log(rows('PostgreSQL COPY of their change rows, history shape', median(changesShapeMs)));
     const floor = median(shapeMs.map((ms, i) => ms + changesShapeMs[i]));
     console.log(rows('  the two together: floor of an import of new parts', floor));
+    console.log(rows('  typed parts columns and checks, no index', median(typedMs)));
+    console.log(rows('  the same with its primary key only', median(keyedMs)));
     console.log(rows('reading and checking alone (JavaScript)', median(readMs)));
     const verdict = (label: string, ms: number) => `${label} ${(ms / copy).toFixed(2)}x ${ms / copy <= TARGET_RATIO ? 'MET' : 'NOT MET'}`;
     console.log(`  target within ${TARGET_RATIO}x of COPY: ${verdict('new', median(freshMs))}; ${verdict('unchanged', median(sameMs))}; ${verdict('daily', median(dailyMs))}; ${verdict('updated', median(updateMs))}`);
@@ -245,7 +266,7 @@ async function main(): Promise<void> {
       `  new parts against their floor (PostgreSQL's own COPY into parts and history shapes): ${(median(freshMs) / floor).toFixed(2)}x; the floor alone is ${(floor / copy).toFixed(2)}x COPY into a bare table`,
     );
     const list = (values: number[]) => values.map((x) => x.toFixed(0)).join(' ');
-    console.log(`  samples (ms): copy ${list(copyMs)}; new ${list(freshMs)}; same ${list(sameMs)}; daily ${list(dailyMs)}; updated ${list(updateMs)}; parts shape ${list(shapeMs)}; changes shape ${list(changesShapeMs)}; read ${list(readMs)}`);
+    console.log(`  samples (ms): copy ${list(copyMs)}; new ${list(freshMs)}; same ${list(sameMs)}; daily ${list(dailyMs)}; updated ${list(updateMs)}; parts shape ${list(shapeMs)}; changes shape ${list(changesShapeMs)}; typed ${list(typedMs)}; keyed ${list(keyedMs)}; read ${list(readMs)}`);
     await sequelize.close();
   } finally {
     if (server) {
