@@ -14,6 +14,7 @@ const baseUrl = inject('baseUrl');
 const mailDir = inject('mailDir');
 let b: BrowserSession;
 let matchId = 0;
+let matchName = '';
 const buildName = `Weather node WN-1, boards for the field trial ${Date.now()}`;
 const supplier = `orders-${Date.now()}@supplier.example`;
 
@@ -40,8 +41,9 @@ beforeAll(async () => {
   const solved = await api<{ networks: { placement: string; solution: number; fits: { rank: number }[] }[] }>('/api/matches/solve', token, request);
   const network = solved.networks.find((n) => n.fits.length > 0);
   if (!network) throw new Error('The demo stock gives no fit for the 868 MHz antenna match.');
+  matchName = `868 MHz antenna ${Date.now()}`;
   const saved = await api<{ id: number }>('/api/matches', token, {
-    name: `868 MHz antenna ${Date.now()}`,
+    name: matchName,
     request,
     chosen: { placement: network.placement, solution: network.solution, rank: network.fits[0].rank },
   });
@@ -59,9 +61,14 @@ describe('a build and its shortfall list', () => {
     await page.getByTestId('build-name').fill(buildName);
     // More boards than the demo stock can cover, so the list cannot be empty.
     await page.getByTestId('build-quantity').fill('20000');
+    // Found by name among all saved matches (other journeys save theirs too), then put on the board.
+    await page.getByTestId('build-match-search').fill(matchName.slice(-9));
+    await expect.poll(() => page.getByTestId('build-match-option').count()).toBe(1);
     await page.locator(`[data-testid="build-match-option"][data-id="${matchId}"] input`).check();
+    await expect.poll(() => page.getByTestId('build-chosen-match').locator('.chosen-name').allTextContents()).toEqual([matchName]);
     const reserveNow = page.locator('[data-testid="build-reserve-now"] input');
     if (!(await reserveNow.isChecked())) await reserveNow.check();
+    await screenshot(page, 'build-plan-chosen');
     await page.getByTestId('build-create').click();
     await page.getByTestId('build-lines').waitFor();
     await expect.poll(() => page.getByTestId('build-line').count()).toBeGreaterThan(0);

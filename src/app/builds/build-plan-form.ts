@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, output, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -7,14 +7,21 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
 import type { BuildResponse } from '../../../shared/api/builds.js';
+import { formatValue } from '../../../shared/engine/value-format.js';
 import { apiErrorMessage } from '../api/api-error-message.js';
+import { MatchClient } from '../matches/match-client.js';
 import type { SavedMatchSummary } from '../matches/saved-match.js';
+import { searchSavedMatches } from '../matches/saved-match-search.js';
 import { BuildClient } from './build-client.js';
 
 /** Most boards one build may plan (the server's own limit). */
 const MAX_BOARDS = 1_000_000;
 
-/** Plans a build: a name, a board quantity and the saved matches one board carries; reserving is the default. */
+/**
+ * Plans a build: a name, a board quantity and the saved matches one board carries, found by name
+ * among all saved matches and kept in the order they were picked (a match higher in the list gets
+ * a scarce part first); reserving is the default.
+ */
 @Component({
   selector: 'sm-build-plan-form',
   templateUrl: './build-plan-form.html',
@@ -25,16 +32,20 @@ const MAX_BOARDS = 1_000_000;
 export class BuildPlanForm {
   private readonly client = inject(BuildClient);
 
-  /** The saved matches a board may carry. */
-  readonly matches = input.required<readonly SavedMatchSummary[]>();
-  /** Whether the saved matches are still loading. */
-  readonly loadingMatches = input(false);
+  /** The saved matches a board may carry: the newest ones whose name holds the search box's text. */
+  protected readonly search = searchSavedMatches(inject(MatchClient));
+  protected readonly matchesError = computed(() => {
+    const answer = this.search.answer();
+    return answer.status === 'failed' ? apiErrorMessage(answer.error, 'The saved matches could not be loaded.') : null;
+  });
   /** Emits the build once it is planned (and reserved). */
   readonly planned = output<BuildResponse>();
 
   protected readonly name = signal('');
   protected readonly quantityText = signal('1');
-  protected readonly chosen = signal<ReadonlySet<number>>(new Set());
+  /** The saved matches on one board, in the order the build lists them. */
+  protected readonly chosen = signal<readonly SavedMatchSummary[]>([]);
+  protected readonly chosenIds = computed(() => new Set(this.chosen().map((m) => m.id)));
   protected readonly reserveNow = signal(true);
   protected readonly busy = signal(false);
   protected readonly error = signal<string | null>(null);
@@ -48,13 +59,26 @@ export class BuildPlanForm {
   });
   protected readonly quantityProblem = computed(() => (this.quantity() === null ? `Boards must be a whole number from 1 to ${MAX_BOARDS.toLocaleString('en')}.` : null));
   /** Whether the form may be sent. */
-  protected readonly ready = computed(() => this.name().trim() !== '' && this.quantity() !== null && this.chosen().size > 0 && !this.busy());
+  protected readonly ready = computed(() => this.name().trim() !== '' && this.quantity() !== null && this.chosen().length > 0 && !this.busy());
 
-  protected toggleMatch(id: number, on: boolean): void {
-    const next = new Set(this.chosen());
-    if (on) next.add(id);
-    else next.delete(id);
+  protected toggleMatch(match: SavedMatchSummary, on: boolean): void {
+    const rest = this.chosen().filter((m) => m.id !== match.id);
+    this.chosen.set(on ? [...rest, match] : rest);
+  }
+
+  /** Moves the chosen match at `index` one place up the list (ahead for scarce parts). */
+  protected moveUp(index: number): void {
+    if (index <= 0) return;
+    const next = [...this.chosen()];
+    [next[index - 1], next[index]] = [next[index], next[index - 1]];
     this.chosen.set(next);
+  }
+
+  /** "868 MHz · Dev Okafor": what tells two saved matches of a similar name apart. */
+  protected matchDetail(match: SavedMatchSummary): string {
+    const parts = [formatValue(match.frequencyHz, 'frequency')];
+    if (match.createdBy) parts.push(match.createdBy.name);
+    return parts.join(' · ');
   }
 
   protected planBuild(): void {
@@ -62,13 +86,13 @@ export class BuildPlanForm {
     if (!this.ready() || quantity === null) return;
     this.busy.set(true);
     this.error.set(null);
-    // Matches go in the order the list shows them: the first listed keep a scarce part.
-    const matchIds = this.matches().map((m) => m.id).filter((id) => this.chosen().has(id));
+    // The server shares a scarce part out in this order: the first listed keep it.
+    const matchIds = this.chosen().map((m) => m.id);
     this.client.createBuild({ name: this.name().trim(), quantity, matchIds, reserve: this.reserveNow() }).subscribe({
       next: (build) => {
         this.busy.set(false);
         this.name.set('');
-        this.chosen.set(new Set());
+        this.chosen.set([]);
         this.planned.emit(build);
       },
       error: (error: unknown) => {

@@ -4,6 +4,7 @@ import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 
 import type { Role } from '../../../shared/api/auth.js';
+import { SAVED_MATCH_SUMMARY } from '../matches/match-fixtures.js';
 import { demoUser, storeSession } from '../testing/signed-in-user.js';
 import { RESERVED_BUILD } from './build-fixtures.js';
 import { BuildsPage } from './builds-page.js';
@@ -25,7 +26,7 @@ describe('BuildsPage', () => {
 
   it('gives a designer the plan form with the saved matches, and the builds so far', async () => {
     await openAs('designer');
-    backend.expectOne('/api/matches').flush([{ id: 3, name: '868 MHz antenna' }]);
+    backend.expectOne('/api/matches').flush({ items: [{ ...SAVED_MATCH_SUMMARY, id: 3, name: '868 MHz antenna' }], total: 1 });
     backend.expectOne((req) => req.url === '/api/builds').flush({ items: [{ id: 5, name: 'NODE-868 rev C', quantity: 50, status: 'reserved', matchCount: 1, shortfallLines: 1, shortfallStatus: 'draft', createdAt: '', updatedAt: '' }], total: 1 });
     await fixture.whenStable();
     const el: HTMLElement = fixture.nativeElement;

@@ -4,13 +4,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, Router } from '@angular/router';
-import { of } from 'rxjs';
 
 import type { Role } from '../../../shared/api/auth.js';
 import type { BuildResponse } from '../../../shared/api/builds.js';
 import { apiErrorMessage } from '../api/api-error-message.js';
 import { AuthSession } from '../auth/auth-session.js';
-import { MatchClient } from '../matches/match-client.js';
 import { fetchedSignal } from '../stock/fetched-signal.js';
 import { BuildClient } from './build-client.js';
 import { BUILD_PLANNING_ROLES, BuildDetail } from './build-detail.js';
@@ -27,7 +25,6 @@ import { BUILD_STATUS_WORDS } from './build-words.js';
 })
 export class BuildsPage {
   private readonly builds = inject(BuildClient);
-  private readonly matchClient = inject(MatchClient);
   private readonly session = inject(AuthSession);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
@@ -37,14 +34,12 @@ export class BuildsPage {
   /** Bumped after every change, so the list fetches again. */
   private readonly revision = signal(0);
   protected readonly list = fetchedSignal(() => this.revision(), () => this.builds.listBuilds());
-  protected readonly savedMatches = fetchedSignal(() => this.mayPlan(), (may) => (may ? this.matchClient.list() : of([])));
   protected readonly selectedId = signal<number | null>(null);
   protected readonly selected = signal<BuildResponse | null>(null);
   protected readonly detailError = signal<string | null>(null);
   protected readonly statusWords = BUILD_STATUS_WORDS;
 
   protected readonly listError = computed(() => (this.list().error ? apiErrorMessage(this.list().error, 'The builds could not be loaded.') : null));
-  protected readonly matchesError = computed(() => (this.savedMatches().error ? apiErrorMessage(this.savedMatches().error, 'The saved matches could not be loaded.') : null));
 
   constructor() {
     inject(ActivatedRoute)

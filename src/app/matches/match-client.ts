@@ -1,6 +1,6 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import { type Observable, firstValueFrom, map } from 'rxjs';
+import { type Observable, firstValueFrom } from 'rxjs';
 
 import type { SolveRequest, SolveResponse } from '../../../shared/api/matches.js';
 import type { ChosenFit, SaveMatchRequest, SavedMatch, SavedMatchSummary } from './saved-match.js';
@@ -21,24 +21,10 @@ export class MatchClient {
     return this.http.post<SavedMatchSummary>('/api/matches', body);
   }
 
-  /**
-   * The saved matches (`GET /api/matches`). api.md does not fix the list's envelope, so both a bare
-   * array and the `{items}` envelope of the other list routes are read.
-   */
   /** The newest saved matches whose name holds `search` (any case; all when blank), with how many there are in all. */
   find(search: string): Observable<{ items: SavedMatchSummary[]; total: number }> {
     const params = search.trim() ? { search: search.trim() } : undefined;
     return this.http.get<{ items: SavedMatchSummary[]; total: number }>('/api/matches', { params });
-  }
-
-  list(): Observable<SavedMatchSummary[]> {
-    return this.http.get<SavedMatchSummary[] | { items: SavedMatchSummary[] }>('/api/matches').pipe(
-      map((answer) => {
-        if (Array.isArray(answer)) return answer;
-        if (answer && Array.isArray(answer.items)) return answer.items;
-        throw new Error('MatchClient: GET /api/matches answered neither a list nor {items: [...]}.');
-      }),
-    );
   }
 
   /**
@@ -53,12 +39,12 @@ export class MatchClient {
     return { blob: response.body ?? new Blob([]), fileName: named?.[1] ?? `match-${id}-${network}.s2p` };
   }
 
-  /** One saved match with its inputs, chosen fit, results and sweep (`GET /api/matches/:id`). */
   /** Deletes a saved match (the designer who saved it, or an admin); builds keep their own copy. */
   delete(id: number): Observable<void> {
     return this.http.delete<void>(`/api/matches/${encodeURIComponent(id)}`);
   }
 
+  /** One saved match with its inputs, chosen fit, results and sweep (`GET /api/matches/:id`). */
   open(id: number | string): Observable<SavedMatch> {
     return this.http.get<SavedMatch>(`/api/matches/${encodeURIComponent(id)}`);
   }

@@ -5,6 +5,7 @@
  */
 import type { Fit, SolveResponse } from '../../../shared/api/matches.js';
 import type { PartItem } from '../../../shared/api/stock.js';
+import type { SavedMatchSummary } from './saved-match.js';
 
 /** The best fit of the low-pass network: a 6.8 pF shunt capacitor and a 10 nH series inductor. */
 export const LOW_PASS_BEST: Fit = {
@@ -146,3 +147,18 @@ function part(
     description: null,
   };
 }
+
+/** One saved match as the list routes give it: the demo antenna, saved by the demo designer. */
+export const SAVED_MATCH_SUMMARY: SavedMatchSummary = {
+  id: 11,
+  name: 'Soil node 868 MHz chip antenna',
+  request: { source: '50', load: '12-j35', frequencyHz: '868MHz' },
+  chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
+  objective: 'worst-case',
+  createdAt: '2026-11-30T09:15:00Z',
+  createdBy: { id: 7, name: 'Dev Okafor', email: 'designer@tarnwick.example' },
+  frequencyHz: 868e6,
+  partNumbers: ['TW-C0402-6P8 x1', 'TW-L0402-10N x1'],
+  totalDb: 0.25,
+  worstCaseDb: 0.61,
+};

@@ -11,25 +11,11 @@ import type { Role } from '../../../shared/api/auth.js';
 import { authInterceptor } from '../auth/auth-interceptor.js';
 import { BlankPage } from '../testing/blank-page.js';
 import { demoUser, storeSession } from '../testing/signed-in-user.js';
-import { LOW_PASS_BEST, SOLVED, STOCKED_PARTS } from './match-fixtures.js';
+import { LOW_PASS_BEST, SAVED_MATCH_SUMMARY, SOLVED, STOCKED_PARTS } from './match-fixtures.js';
 import { MatchesPage } from './matches-page.js';
 import type { SavedMatch, SavedMatchSummary } from './saved-match.js';
 
-const SAVED_LIST: SavedMatchSummary[] = [
-  {
-    id: 11,
-    name: 'Soil node 868 MHz chip antenna',
-    request: { source: '50', load: '12-j35', frequencyHz: '868MHz' },
-    chosen: { placement: 'shunt-at-source', solution: 1, rank: 1 },
-    objective: 'worst-case',
-    createdAt: '2026-11-30T09:15:00Z',
-    createdBy: { id: 7, name: 'Dev Okafor', email: 'designer@tarnwick.example' },
-    frequencyHz: 868e6,
-    partNumbers: ['TW-C0402-6P8 x1', 'TW-L0402-10N x1'],
-    totalDb: 0.25,
-    worstCaseDb: 0.61,
-  },
-];
+const SAVED_LIST: SavedMatchSummary[] = [SAVED_MATCH_SUMMARY];
 
 describe('MatchesPage', () => {
   let fixture: ComponentFixture<MatchesPage>;

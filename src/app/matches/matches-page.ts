@@ -9,8 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
-import { debounceTime, distinctUntilChanged, firstValueFrom } from 'rxjs';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { firstValueFrom } from 'rxjs';
 
 import type { SolveRequest, SolveResponse } from '../../../shared/api/matches.js';
 import { type SolveInput, isEngineInputError, parseSolveRequest } from '../../../shared/engine/index.js';
@@ -22,9 +21,10 @@ import { MatchClient } from './match-client.js';
 import { MatchForm } from './match-form.js';
 import { MatchResults } from './match-results.js';
 import { answerOf, failureOf, latestAnswer } from './request-state.js';
-import type { ChosenFit, SavedMatch, SavedMatchSummary } from './saved-match.js';
+import type { ChosenFit, SavedMatch } from './saved-match.js';
 import { savedMatchView } from './saved-match-view.js';
 import { SavedMatchList } from './saved-match-list.js';
+import { searchSavedMatches } from './saved-match-search.js';
 import { saveBlob } from '../builds/build-client.js';
 
 /** How long a confirmation stays, in milliseconds. */
@@ -47,9 +47,6 @@ export function defaultChoice(solution: SolveResponse | undefined, preferred: Ch
  * cautions), saving the chosen fit under a name, and the saved matches, which reopen with their
  * results (`?saved=<id>`).
  */
-/** Pause in typing before the saved-match search is sent, ms. */
-const SEARCH_PAUSE_MS = 250;
-
 @Component({
   selector: 'sm-matches-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -98,20 +95,13 @@ export class MatchesPage {
   );
   /** Bumped to fetch the saved matches again. */
   private readonly listVersion = signal(0);
-  /** What the saved-match search box holds, and the same after a pause in typing. */
-  protected readonly savedSearchText = signal('');
-  private readonly savedSearch = toSignal(toObservable(this.savedSearchText).pipe(debounceTime(SEARCH_PAUSE_MS), distinctUntilChanged()), {
-    initialValue: '',
-  });
-  protected readonly savedList = latestAnswer(
-    computed(() => ({ version: this.listVersion(), search: this.savedSearch() })),
-    ({ search }) => this.client.find(search),
-  );
-  /** The saved matches (empty while they are fetched). */
-  protected readonly savedMatches = computed((): SavedMatchSummary[] => answerOf(this.savedList())?.items ?? []);
-  /** How many saved matches the search finds in all (the list shows the newest page of them). */
-  protected readonly savedTotal = computed(() => answerOf(this.savedList())?.total ?? 0);
-  protected readonly savedSearchActive = computed(() => this.savedSearch().trim() !== '');
+  /** The saved-match search box and its answer: the newest matches whose name holds its text. */
+  private readonly savedSearch = searchSavedMatches(this.client, this.listVersion);
+  protected readonly savedSearchText = this.savedSearch.text;
+  protected readonly savedList = this.savedSearch.answer;
+  protected readonly savedMatches = this.savedSearch.items;
+  protected readonly savedTotal = this.savedSearch.total;
+  protected readonly savedSearchActive = this.savedSearch.active;
   /** Why the saved match could not be opened. */
   protected readonly savedMatchFailure = computed(() =>
     apiErrorMessage(failureOf(this.savedMatch()), 'The saved match could not be opened, and the server did not say why.'),
