@@ -25,12 +25,15 @@ export const SHORTFALL_STATUSES: readonly ShortfallStatus[] = ['draft', 'sent', 
  */
 export type ShortfallReason = 'short-stock' | 'over-budget';
 
+/** Most saved matches one board may carry (`POST /api/builds` refuses more). */
+export const MAX_MATCHES_PER_BUILD = 50;
+
 /** `POST /api/builds` body. */
 export interface CreateBuildRequest {
   name: string;
   /** Boards to build, a whole number >= 1. */
   quantity: number;
-  /** The saved matches one board carries (at least one; a match may be listed once). */
+  /** The saved matches one board carries (1 to {@link MAX_MATCHES_PER_BUILD}; a match may be listed once), first served first. */
   matchIds: number[];
   /** Extension: `false` creates a `planned` build that holds nothing until `POST /api/builds/:id/reserve`. Default true. */
   reserve?: boolean;

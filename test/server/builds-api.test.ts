@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { uploadStock } from '../fixtures/stock/stock-upload.js';
+import { MAX_MATCHES_PER_BUILD } from '../../shared/api/builds.js';
 import { SUB_GHZ_SHUNT_C_F, stockFile, stockRow } from './builds-scenario.js';
 
 let t: TestApp;
@@ -76,5 +77,18 @@ describe('POST /api/builds', () => {
     expect(res.body.error.message).toBe('Saved matches 98765, 98766 were not found.');
     expect(res.body.error.details.map((d: { value: number }) => d.value)).toEqual([98765, 98766]);
     expect((await post({ name: 'x', quantity: 1, matchIds: [matchId] }, admin.token)).status).toBe(201);
+  });
+
+  it('refuses a board of more matches than MAX_MATCHES_PER_BUILD, or one match listed twice, and plans nothing', async () => {
+    const before = await request(t.app).get('/api/builds').set('Authorization', `Bearer ${designer.token}`);
+    const tooMany = await post({ name: 'x', quantity: 1, matchIds: Array.from({ length: MAX_MATCHES_PER_BUILD + 1 }, () => matchId).map((id, i) => id + i) });
+    expect(tooMany.status).toBe(400);
+    expect(JSON.stringify(tooMany.body.error)).toContain(`a board may carry at most ${MAX_MATCHES_PER_BUILD} matches`);
+    expect(tooMany.body.error.details.some((d: { field: string }) => d.field === 'matchIds')).toBe(true);
+    const twice = await post({ name: 'x', quantity: 1, matchIds: [matchId, matchId] });
+    expect(twice.status).toBe(400);
+    expect(JSON.stringify(twice.body.error)).toContain('list each match once');
+    const after = await request(t.app).get('/api/builds').set('Authorization', `Bearer ${designer.token}`);
+    expect(after.body.total).toBe(before.body.total);
   });
 });

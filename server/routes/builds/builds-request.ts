@@ -1,10 +1,8 @@
 /** Request schemas of the build routes (api.md "Builds and shortfall lists"). */
 import { z } from 'zod';
-import { BUILD_STATUSES, SHORTFALL_STATUSES, type BuildStatus, type ShortfallStatus } from '../../../shared/api/builds.js';
+import { BUILD_STATUSES, MAX_MATCHES_PER_BUILD, SHORTFALL_STATUSES, type BuildStatus, type ShortfallStatus } from '../../../shared/api/builds.js';
 import { MAX_BUILD_QUANTITY } from '../../../shared/engine/solve-request.js';
 
-/** Most saved matches one board may carry. */
-export const MAX_MATCHES_PER_BUILD = 50;
 /** Most lines one receipt may carry. */
 export const MAX_RECEIPT_LINES = 500;
 /** Most addresses one send may name. */

@@ -7,7 +7,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 
-import type { BuildResponse } from '../../../shared/api/builds.js';
+import { MAX_MATCHES_PER_BUILD, type BuildResponse } from '../../../shared/api/builds.js';
 import { SAVED_MATCH_SUMMARY } from '../matches/match-fixtures.js';
 import type { SavedMatchSummary } from '../matches/saved-match.js';
 import { RESERVED_BUILD } from './build-fixtures.js';
@@ -109,6 +109,19 @@ describe('BuildPlanForm', () => {
     await (await field('build-name')).setValue('x');
     await (await create()).click();
     expect(backend.expectOne('/api/builds').request.body.matchIds).toEqual([4, 3]);
+  });
+
+  it('lets a board carry at most the server\'s 50 matches', async () => {
+    const many = Array.from({ length: MAX_MATCHES_PER_BUILD + 1 }, (_, i) => saved(100 + i, `Match ${i + 1}`));
+    await answerNewest(many);
+    const boxes = await options();
+    for (const box of boxes.slice(0, MAX_MATCHES_PER_BUILD)) await box.check();
+    expect(chosenNames()).toHaveLength(MAX_MATCHES_PER_BUILD);
+    expect(await boxes[MAX_MATCHES_PER_BUILD].isDisabled()).toBe(true);
+    expect(fixture.nativeElement.querySelector('[data-testid="build-board-full"]')?.textContent).toContain('at most 50 saved matches');
+    await boxes[0].uncheck();
+    expect(await boxes[MAX_MATCHES_PER_BUILD].isDisabled()).toBe(false);
+    expect(fixture.nativeElement.querySelector('[data-testid="build-board-full"]')).toBeNull();
   });
 
   it('says so when there are no saved matches, or they cannot be loaded', async () => {

@@ -6,16 +6,14 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 
-import type { BuildResponse } from '../../../shared/api/builds.js';
+import { MAX_MATCHES_PER_BUILD, type BuildResponse } from '../../../shared/api/builds.js';
+import { MAX_BUILD_QUANTITY } from '../../../shared/engine/solve-request.js';
 import { formatValue } from '../../../shared/engine/value-format.js';
 import { apiErrorMessage } from '../api/api-error-message.js';
 import { MatchClient } from '../matches/match-client.js';
 import type { SavedMatchSummary } from '../matches/saved-match.js';
 import { searchSavedMatches } from '../matches/saved-match-search.js';
 import { BuildClient } from './build-client.js';
-
-/** Most boards one build may plan (the server's own limit). */
-const MAX_BOARDS = 1_000_000;
 
 /**
  * Plans a build: a name, a board quantity and the saved matches one board carries, found by name
@@ -46,6 +44,9 @@ export class BuildPlanForm {
   /** The saved matches on one board, in the order the build lists them. */
   protected readonly chosen = signal<readonly SavedMatchSummary[]>([]);
   protected readonly chosenIds = computed(() => new Set(this.chosen().map((m) => m.id)));
+  /** Whether the board carries as many matches as a build may (the rest of the list cannot be ticked). */
+  protected readonly boardFull = computed(() => this.chosen().length >= MAX_MATCHES_PER_BUILD);
+  protected readonly maxMatches = MAX_MATCHES_PER_BUILD;
   protected readonly reserveNow = signal(true);
   protected readonly busy = signal(false);
   protected readonly error = signal<string | null>(null);
@@ -55,14 +56,15 @@ export class BuildPlanForm {
     const text = this.quantityText().trim();
     if (!/^\d+$/.test(text)) return null;
     const n = Number(text);
-    return n >= 1 && n <= MAX_BOARDS ? n : null;
+    return n >= 1 && n <= MAX_BUILD_QUANTITY ? n : null;
   });
-  protected readonly quantityProblem = computed(() => (this.quantity() === null ? `Boards must be a whole number from 1 to ${MAX_BOARDS.toLocaleString('en')}.` : null));
+  protected readonly quantityProblem = computed(() => (this.quantity() === null ? `Boards must be a whole number from 1 to ${MAX_BUILD_QUANTITY.toLocaleString('en')}.` : null));
   /** Whether the form may be sent. */
   protected readonly ready = computed(() => this.name().trim() !== '' && this.quantity() !== null && this.chosen().length > 0 && !this.busy());
 
   protected toggleMatch(match: SavedMatchSummary, on: boolean): void {
     const rest = this.chosen().filter((m) => m.id !== match.id);
+    if (on && rest.length >= MAX_MATCHES_PER_BUILD) return;
     this.chosen.set(on ? [...rest, match] : rest);
   }
 
