@@ -18,8 +18,8 @@ const AXE_SOURCE = readFileSync(require.resolve('axe-core/axe.min.js'), 'utf8');
 /** The axe tags of the WCAG 2.0, 2.1 and 2.2 success criteria at levels A and AA. */
 export const WCAG2_A_AA_TAGS = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'] as const;
 
-/** The impacts that fail a screen; axe's "minor" and "moderate" are left to review. */
-const FAILING_IMPACTS: readonly ImpactValue[] = ['serious', 'critical'];
+/** The impacts that fail a screen, under a WCAG A/AA rule or a best practice; "minor" findings are left to review. */
+const FAILING_IMPACTS: readonly ImpactValue[] = ['moderate', 'serious', 'critical'];
 /** Characters of an element's HTML printed beside its selector. */
 const SNIPPET_LENGTH = 160;
 /**
@@ -41,11 +41,10 @@ const MAX_VIEWPORT_HEIGHT = 16_000;
 
 /**
  * Runs axe on the whole document with the WCAG 2 A/AA rules (and axe's best-practice rules, for the
- * review file only) and returns one line per failing element of every serious or critical WCAG
- * violation: rule id, impact, what axe asks for, the element's CSS selector and the start of its
+ * review file only) and returns one line per failing element of every moderate, serious or
+ * critical violation (WCAG A/AA rules and axe's best practices): rule id, impact, what axe asks for, the element's CSS selector and the start of its
  * HTML, and axe's summary of what is wrong with it. An empty list means the screen passes.
- * Everything axe found, failing or not (minor and moderate impacts, best-practice rules, checks it
- * could not decide such as contrast over an image), goes to `tmp/screenshots/a11y-<name>.json`.
+ * Everything axe found, failing or not (minor impacts too, and checks it could not decide such as contrast over an image), goes to `tmp/screenshots/a11y-<name>.json`.
  */
 export async function accessibilityProblems(page: Page, name: string): Promise<string[]> {
   const loaded = await page.evaluate(() => typeof (window as unknown as { axe?: unknown }).axe === 'object');
@@ -85,7 +84,6 @@ export async function accessibilityProblems(page: Page, name: string): Promise<s
   const problems: string[] = [];
   for (const violation of results.violations) {
     if (!FAILING_IMPACTS.includes(violation.impact ?? null)) continue;
-    if (!violation.tags.some((tag) => (WCAG2_A_AA_TAGS as readonly string[]).includes(tag))) continue;
     for (const node of violation.nodes) {
       const why = node.failureSummary?.replace(/\s+/g, ' ').trim() ?? '';
       problems.push(`${violation.id} (${violation.impact}): ${violation.help} at ${targetOf(node)} ${snippet(node.html)}${why ? ` — ${why}` : ''} [${violation.helpUrl}]`);
