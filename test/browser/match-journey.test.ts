@@ -6,7 +6,9 @@
  * and reopens it from the saved matches; and stops a solve on its way.
  */
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { openBrowser, screenshot, signInAs, type BrowserSession } from '../support/browser.js';
+import { join } from 'node:path';
+import { SCREENSHOT_DIR, openBrowser, screenshot, signInAs, type BrowserSession } from '../support/browser.js';
+import { accessibilityProblems } from '../support/accessibility.js';
 import { DEMO_PASSWORD } from '../../seeds/demo-accounts.js';
 
 const baseUrl = inject('baseUrl');
@@ -46,7 +48,6 @@ describe('the match workspace', () => {
     expect(await page.getByTestId('smith-fit-arc').count()).toBeGreaterThan(0);
     expect(((await page.getByTestId('match-cautions').textContent()) ?? '').toLowerCase()).toMatch(/network analy[sz]er/);
     await screenshot(page, 'match-solved');
-
     await page.getByTestId('match-name').fill(name);
     const saved = page.waitForResponse((r) => r.url().endsWith('/api/matches') && r.request().method() === 'POST');
     await page.getByTestId('match-save').click();
@@ -80,6 +81,26 @@ describe('the match workspace', () => {
     await expect.poll(() => page.getByTestId('saved-match-row').filter({ hasText: name }).count()).toBe(0);
     await expect.poll(() => page.getByTestId('reopened-match').count()).toBe(0);
     expect(new URL(page.url()).searchParams.get('saved')).toBeNull();
+  });
+
+  it('says in words what every flag on the fits means', async () => {
+    const { page } = b;
+    await page.goto(`${baseUrl}/matches`);
+    await page.getByTestId('match-source').fill('50');
+    await page.getByTestId('match-load').fill('12-j35');
+    await page.getByTestId('match-frequency').fill('868MHz');
+    // Far more RF power than 0402 parts are rated for, so the fits are flagged over rating.
+    await page.getByTestId('match-power').fill('50W');
+    await page.getByTestId('match-solve').click();
+    await expect.poll(() => page.getByTestId('fit-row').count(), { timeout: 20_000 }).toBeGreaterThan(0);
+    const legend = page.getByTestId('flag-legend');
+    const chipFlags = new Set(await page.locator('mat-chip[data-flag]').evaluateAll((chips) => chips.map((c) => c.getAttribute('data-flag'))));
+    const legendFlags = await legend.locator('[data-flag]').evaluateAll((rows) => rows.map((r) => r.getAttribute('data-flag')));
+    expect(chipFlags.has('over-rating')).toBe(true);
+    expect([...legendFlags].sort()).toEqual([...chipFlags].sort());
+    expect(await legend.locator('[data-flag="over-rating"] dd').textContent()).toContain('more voltage or current than its (DC) rating');
+    await legend.screenshot({ path: join(SCREENSHOT_DIR, 'match-flag-legend.png') });
+    expect(await accessibilityProblems(page, 'match-flag-legend')).toEqual([]);
   });
 
   it('stops a solve on its way: the browser drops the request and the form can solve again', async () => {

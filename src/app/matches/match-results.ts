@@ -3,6 +3,7 @@ import { MatIconModule } from '@angular/material/icon';
 
 import type { Fit, MatchNetwork, SolveResponse } from '../../../shared/api/matches.js';
 import { type SolveInput, formatImpedance, formatValue } from '../../../shared/engine/index.js';
+import { presentFlags } from './fit-flags.js';
 import { MatchViews } from './match-views.js';
 import { NetworkCard, placementName } from './network-card.js';
 import type { ChosenFit, MatchSweep } from './saved-match.js';
@@ -31,6 +32,18 @@ export class MatchResults {
   readonly choose = output<ChosenFit>();
 
   protected readonly placementName = placementName;
+
+  /** What each flag on the fits of this answer means, once per flag (the chips' tooltips need a pointer). */
+  protected readonly flagLegend = computed(() => {
+    const flags: string[] = [];
+    for (const network of this.solution().networks) {
+      for (const fit of network.fits) {
+        flags.push(...fit.flags);
+        for (const element of fit.elements) flags.push(...element.flags);
+      }
+    }
+    return presentFlags(flags);
+  });
 
   protected readonly summary = computed(() => {
     const { source, load, frequencyHz } = this.solveInput();

@@ -159,6 +159,18 @@ describe('MatchesPage', () => {
     expect(cautions.textContent).toContain('radio regulations');
   });
 
+  it('says in words what each flag on the fits means, once per flag, most serious first', async () => {
+    await open();
+    await solveDemoMatch();
+    const legend = all('flag-legend')[0];
+    const entries = Array.from(legend.querySelectorAll<HTMLElement>('[data-flag]'));
+    // The fixture's fits carry limit-unknown, above-limit and short-stock (fit-flags.ts orders them).
+    expect(entries.map((e) => e.dataset['flag'])).toEqual(['short-stock', 'above-limit', 'limit-unknown']);
+    expect(entries[0].querySelector('dt')?.textContent?.trim()).toBe('Short stock');
+    expect(entries[0].querySelector('dd')?.textContent).toContain('Stores do not have enough of a part for the build quantity.');
+    expect(entries[2].querySelector('dd')?.textContent).toContain('gives no SRF');
+  });
+
   it('chooses the best fit of the first network, and draws the plot and the Smith chart for it', async () => {
     await open();
     await solveDemoMatch();
