@@ -100,6 +100,7 @@ describe('the match workspace', () => {
     expect([...legendFlags].sort()).toEqual([...chipFlags].sort());
     expect(await legend.locator('[data-flag="over-rating"] dd').textContent()).toContain('more voltage or current than its (DC) rating');
     await legend.screenshot({ path: join(SCREENSHOT_DIR, 'match-flag-legend.png') });
+    await page.locator('[data-testid="fit-row"]:has(mat-chip[data-flag])').first().screenshot({ path: join(SCREENSHOT_DIR, 'match-flagged-fit.png') });
     expect(await accessibilityProblems(page, 'match-flag-legend')).toEqual([]);
   });
 
