@@ -78,6 +78,10 @@ describe('a build and its shortfall list', () => {
     const nameBox = await page.getByTestId('build-row').filter({ hasText: buildName }).locator('.name').evaluate((el) => ({ scroll: el.scrollWidth, client: el.clientWidth, text: el.textContent?.trim() }));
     expect(nameBox.text).toBe(buildName);
     expect(nameBox.scroll).toBeLessThanOrEqual(nameBox.client);
+    // The list finds it by part of its name, in another case, among all builds.
+    await page.getByTestId('build-search').fill(buildName.slice(-13).toUpperCase());
+    await expect.poll(() => page.getByTestId('build-row').allTextContents()).toEqual([expect.stringContaining(buildName)]);
+    await screenshot(page, 'build-list-found');
     await page.getByTestId('sign-out').click();
   });
 

@@ -92,3 +92,33 @@ describe('POST /api/builds', () => {
     expect(after.body.total).toBe(before.body.total);
   });
 });
+
+describe('GET /api/builds?search=', () => {
+  const list = async (query: string) => {
+    const res = await request(t.app).get(`/api/builds?${query}`).set('Authorization', `Bearer ${designer.token}`);
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    return { names: (res.body.items as { name: string }[]).map((b) => b.name), total: res.body.total as number };
+  };
+
+  beforeAll(async () => {
+    await t.sequelize.query('TRUNCATE reservations, shortfall_lines, shortfall_lists, build_matches, builds CASCADE');
+    for (const [name, reserve] of [['Soil node rev B', true], ['soil node rev C', false], ['Gateway 40.68 MHz', true], ['Odd 100%_batch', false]] as const) {
+      expect((await post({ name, quantity: 1, matchIds: [matchId], reserve })).status).toBe(201);
+    }
+  });
+
+  it('keeps the builds whose name holds the text, in any case, newest first, with their total, beside the status filter', async () => {
+    expect(await list('search=SOIL%20NODE')).toEqual({ names: ['soil node rev C', 'Soil node rev B'], total: 2 });
+    expect(await list('search=soil&pageSize=1')).toEqual({ names: ['soil node rev C'], total: 2 });
+    expect(await list('search=soil&status=reserved')).toEqual({ names: ['Soil node rev B'], total: 1 });
+    expect(await list('search=%20%20')).toEqual({ names: expect.any(Array), total: 4 });
+    expect(await list('search=nothing%20like%20it')).toEqual({ names: [], total: 0 });
+  });
+
+  it('reads % and _ as themselves, and refuses a search over 200 characters naming it', async () => {
+    expect(await list(`search=${encodeURIComponent('%_')}`)).toEqual({ names: ['Odd 100%_batch'], total: 1 });
+    const res = await request(t.app).get(`/api/builds?search=${'x'.repeat(201)}`).set('Authorization', `Bearer ${designer.token}`);
+    expect(res.status).toBe(400);
+    expect(res.body.error.details[0].field).toBe('search');
+  });
+});

@@ -87,8 +87,9 @@ const pageNumber = (name: string, max: number, fallback: number) =>
       return n;
     });
 
-/** `GET /api/builds?status=&page=&pageSize=`. */
+/** `GET /api/builds?status=&search=&page=&pageSize=` (`search`: part of the name, any case). */
 export const buildListQuerySchema = z.object({
+  search: z.string().max(200, 'search is at most 200 characters').optional(),
   status: z.enum(BUILD_STATUSES as [BuildStatus, ...BuildStatus[]], { message: `status must be one of ${BUILD_STATUSES.join(', ')}` }).optional(),
   page: pageNumber('page', 1_000_000, 1),
   pageSize: pageNumber('pageSize', 200, 50),

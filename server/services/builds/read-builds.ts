@@ -3,6 +3,7 @@ import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { BuildListResponse, BuildResponse, BuildStatus } from '../../../shared/api/builds.js';
 import { Build, BuildMatch, Reservation, ShortfallList, User } from '../../models/index.js';
 import { notFound } from '../../errors.js';
+import { containsPattern } from '../sql-like.js';
 import { presentShortfallLine, shortfallLinesOf } from '../shortfall/read-shortfall-list.js';
 
 /** Build `buildId` as the API shows it. @throws 404 */
@@ -41,10 +42,12 @@ export async function readBuild(buildId: number, transaction?: Transaction): Pro
   };
 }
 
-/** Builds, newest first, optionally of one status. */
-export async function listBuilds(sequelize: Sequelize, query: { status?: BuildStatus; page: number; pageSize: number }): Promise<BuildListResponse> {
-  const where = query.status ? 'WHERE b.status = :status' : '';
-  const replacements = { status: query.status ?? null, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
+/** Builds, newest first, optionally of one status and with `search` in their name (any case, `%` and `_` literal). */
+export async function listBuilds(sequelize: Sequelize, query: { status?: BuildStatus; search?: string; page: number; pageSize: number }): Promise<BuildListResponse> {
+  const search = query.search?.trim();
+  const conditions = [query.status ? 'b.status = :status' : null, search ? 'b.name ILIKE :like' : null].filter((c) => c !== null);
+  const where = conditions.length > 0 ? `WHERE ${conditions.join(' AND ')}` : '';
+  const replacements = { status: query.status ?? null, like: search ? containsPattern(search) : null, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
   const rows = await sequelize.query<{
     id: number;
     name: string;

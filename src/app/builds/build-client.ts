@@ -5,6 +5,7 @@ import { type Observable, firstValueFrom } from 'rxjs';
 import type {
   BuildListResponse,
   BuildResponse,
+  BuildStatus,
   BuildStatusChange,
   CreateBuildRequest,
   ReceiveLine,
@@ -15,14 +16,20 @@ import type {
   ShortfallStatus,
 } from '../../../shared/api/builds.js';
 
+/** How many builds the Builds page lists at once (the newest; the others are found by name). */
+export const BUILD_LIST_PAGE_SIZE = 100;
+
 /** The build and shortfall routes of the API (api.md "Builds and shortfall lists"). */
 @Injectable({ providedIn: 'root' })
 export class BuildClient {
   private readonly http = inject(HttpClient);
 
-  /** Builds, newest first (`GET /api/builds`). */
-  listBuilds(pageSize = 100): Observable<BuildListResponse> {
-    return this.http.get<BuildListResponse>('/api/builds', { params: new HttpParams().set('pageSize', pageSize) });
+  /** The newest builds, optionally only those whose name holds `search` (any case) or of one status (`GET /api/builds`), with how many there are in all. */
+  listBuilds(options: { pageSize?: number; search?: string; status?: BuildStatus } = {}): Observable<BuildListResponse> {
+    let params = new HttpParams().set('pageSize', options.pageSize ?? BUILD_LIST_PAGE_SIZE);
+    if (options.search?.trim()) params = params.set('search', options.search.trim());
+    if (options.status) params = params.set('status', options.status);
+    return this.http.get<BuildListResponse>('/api/builds', { params });
   }
 
   /** One build with its lines and shortfall list (`GET /api/builds/:id`). */

@@ -2,6 +2,9 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
 
 import type { Role } from '../../../shared/api/auth.js';
 import { SAVED_MATCH_SUMMARY } from '../matches/match-fixtures.js';
@@ -45,6 +48,35 @@ describe('BuildsPage', () => {
     fixture.detectChanges();
     await fixture.whenStable();
     expect(fixture.nativeElement.querySelector('[data-testid="build-detail-name"]')?.textContent).toContain('NODE-868 rev C');
+    backend.verify();
+  });
+
+  it('finds builds by name and status, and says when it lists only the newest', async () => {
+    await openAs('stores');
+    const row = (id: number, name: string) => ({ id, name, quantity: 1, status: 'reserved', matchCount: 1, shortfallLines: 0, shortfallStatus: null, createdAt: '', updatedAt: '' });
+    const first = backend.expectOne((req) => req.url === '/api/builds');
+    expect(first.request.params.get('search')).toBeNull();
+    first.flush({ items: [row(9, 'Soil node rev C'), row(8, 'Gateway')], total: 140 });
+    await fixture.whenStable();
+    const el: HTMLElement = fixture.nativeElement;
+    expect(el.querySelector('[data-testid="build-list-more"]')?.textContent).toContain('The newest 2 of 140; find the others by name or status.');
+
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    await (await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="build-search"]' }))).setValue('soil');
+    const found = await vi.waitFor(() => backend.expectOne((req) => req.url === '/api/builds' && req.params.get('search') === 'soil'));
+    found.flush({ items: [row(9, 'Soil node rev C')], total: 1 });
+    await fixture.whenStable();
+    expect(el.querySelectorAll('[data-testid="build-row"]')).toHaveLength(1);
+    expect(el.querySelector('[data-testid="build-list-more"]')).toBeNull();
+
+    const status = await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="build-status-filter"]' }));
+    await status.open();
+    await status.clickOptions({ text: 'Built' });
+    const built = backend.expectOne((req) => req.url === '/api/builds' && req.params.get('status') === 'built');
+    expect(built.request.params.get('search')).toBe('soil');
+    built.flush({ items: [], total: 0 });
+    await fixture.whenStable();
+    expect(el.querySelector('[data-testid="build-list-none"]')?.textContent).toContain('No build matches these filters.');
     backend.verify();
   });
 });

@@ -1,13 +1,9 @@
 import { type Signal, computed, signal, type WritableSignal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { debounceTime, distinctUntilChanged } from 'rxjs';
 
+import { SEARCH_PAUSE_MS, settledText } from '../layout/settled-text.js';
 import type { MatchClient } from './match-client.js';
 import { type RequestState, answerOf, latestAnswer } from './request-state.js';
 import type { SavedMatchSummary } from './saved-match.js';
-
-/** Pause in typing before a saved-match search is sent, ms. */
-export const SEARCH_PAUSE_MS = 250;
 
 /** A "find saved matches by name" box and what the server answers for it. */
 export interface SavedMatchSearch {
@@ -30,7 +26,7 @@ export interface SavedMatchSearch {
  */
 export function searchSavedMatches(client: MatchClient, reload: Signal<unknown> = signal(0)): SavedMatchSearch {
   const text = signal('');
-  const settled = toSignal(toObservable(text).pipe(debounceTime(SEARCH_PAUSE_MS), distinctUntilChanged()), { initialValue: '' });
+  const settled = settledText(text);
   const answer = latestAnswer(
     computed(() => ({ reload: reload(), search: settled() })),
     ({ search }) => client.find(search),
