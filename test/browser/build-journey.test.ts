@@ -89,8 +89,16 @@ describe('a build and its shortfall list', () => {
     const { page } = b;
     await signInAs(page, baseUrl, 'purchasing@tarnwick.example', DEMO_PASSWORD);
     await page.getByTestId('nav-shortfall').click();
+    // Purchasing narrows the overview to drafts of this build, as one would among many.
+    await page.getByTestId('shortfall-search').fill(buildName.slice(-13));
+    await page.getByTestId('shortfall-status-filter').click();
+    await page.getByRole('option', { name: 'Draft' }).click();
+    await expect.poll(() => page.getByTestId('shortfall-list-row').allTextContents()).toEqual([expect.stringContaining(buildName)]);
     await page.getByTestId('shortfall-list-row').filter({ hasText: buildName }).click();
     await page.getByTestId('shortfall-lines').waitFor();
+    // Back to any status, so the row stays in view as the list moves on from draft.
+    await page.getByTestId('shortfall-status-filter').click();
+    await page.getByRole('option', { name: 'Any' }).click();
 
     const download = page.waitForEvent('download');
     await page.getByTestId('shortfall-export').click();

@@ -206,4 +206,20 @@ describe('status and overview', () => {
     ]);
     expect((await as(designer).get('/api/shortfall?status=draft')).body.items).toEqual([]);
   });
+
+  it('finds lists by part of their build\'s name, in any case and with % and _ literal, beside the status filter', async () => {
+    const found = async (query: string) => {
+      const res = await as(designer).get(`/api/shortfall?${query}`);
+      expect(res.status, JSON.stringify(res.body)).toBe(200);
+      return { builds: (res.body.items as { buildName: string }[]).map((l) => l.buildName), total: res.body.total as number };
+    };
+    expect(await found('search=node-915')).toEqual({ builds: ['NODE-915 rev B'], total: 1 });
+    expect(await found('search=node-915&status=ordered')).toEqual({ builds: ['NODE-915 rev B'], total: 1 });
+    expect(await found('search=node-915&status=sent')).toEqual({ builds: [], total: 0 });
+    expect(await found(`search=${encodeURIComponent('NODE_915')}`)).toEqual({ builds: [], total: 0 });
+    expect(await found('search=gateway')).toEqual({ builds: [], total: 0 });
+    const long = await as(designer).get(`/api/shortfall?search=${'x'.repeat(201)}`);
+    expect(long.status).toBe(400);
+    expect(long.body.error.details[0].field).toBe('search');
+  });
 });

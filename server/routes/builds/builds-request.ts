@@ -95,8 +95,9 @@ export const buildListQuerySchema = z.object({
   pageSize: pageNumber('pageSize', 200, 50),
 });
 
-/** `GET /api/shortfall?status=&page=&pageSize=`. */
+/** `GET /api/shortfall?status=&search=&page=&pageSize=` (`search`: part of the build's name, any case). */
 export const shortfallListQuerySchema = z.object({
+  search: z.string().max(200, 'search is at most 200 characters').optional(),
   status: z.enum(SHORTFALL_STATUSES as [ShortfallStatus, ...ShortfallStatus[]], { message: `status must be one of ${SHORTFALL_STATUSES.join(', ')}` }).optional(),
   page: pageNumber('page', 1_000_000, 1),
   pageSize: pageNumber('pageSize', 200, 50),

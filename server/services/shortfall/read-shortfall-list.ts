@@ -4,6 +4,7 @@ import type { ShortfallLine as ShortfallLineItem, ShortfallListResponse, Shortfa
 import { toleranceOf } from '../stock/present-part.js';
 import { Build, ShortfallLine, ShortfallList } from '../../models/index.js';
 import { notFound } from '../../errors.js';
+import { containsPattern } from '../sql-like.js';
 
 /** The API face of a stored line. */
 export function presentShortfallLine(line: ShortfallLine): ShortfallLineItem {
@@ -57,10 +58,12 @@ export async function readShortfallList(buildId: number, transaction?: Transacti
   };
 }
 
-/** Every shortfall list, newest change first, optionally of one status (`GET /api/shortfall`). */
-export async function listShortfallLists(sequelize: Sequelize, query: { status?: ShortfallStatus; page: number; pageSize: number }): Promise<ShortfallListsResponse> {
-  const where = query.status ? 'WHERE l.status = :status' : '';
-  const replacements = { status: query.status ?? null, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
+/** Every shortfall list, newest change first, optionally of one status and with `search` in its build's name (`GET /api/shortfall`). */
+export async function listShortfallLists(sequelize: Sequelize, query: { status?: ShortfallStatus; search?: string; page: number; pageSize: number }): Promise<ShortfallListsResponse> {
+  const search = query.search?.trim();
+  const conditions = [query.status ? 'l.status = :status' : null, search ? 'b.name ILIKE :like' : null].filter((c) => c !== null);
+  const where = conditions.length > 0 ? `WHERE ${conditions.join(' AND ')}` : '';
+  const replacements = { status: query.status ?? null, like: search ? containsPattern(search) : null, limit: query.pageSize, offset: (query.page - 1) * query.pageSize };
   const rows = await sequelize.query<{
     id: number;
     build_id: number;
@@ -80,7 +83,7 @@ export async function listShortfallLists(sequelize: Sequelize, query: { status?:
      ${where} GROUP BY l.id, b.id ORDER BY l.updated_at DESC, l.id DESC LIMIT :limit OFFSET :offset`,
     { replacements, type: QueryTypes.SELECT },
   );
-  const [{ total }] = await sequelize.query<{ total: string }>(`SELECT COUNT(*) AS total FROM shortfall_lists l ${where}`, { replacements, type: QueryTypes.SELECT });
+  const [{ total }] = await sequelize.query<{ total: string }>(`SELECT COUNT(*) AS total FROM shortfall_lists l JOIN builds b ON b.id = l.build_id ${where}`, { replacements, type: QueryTypes.SELECT });
   return {
     total: Number(total),
     items: rows.map((r) => ({

@@ -16,7 +16,7 @@ import type {
   ShortfallStatus,
 } from '../../../shared/api/builds.js';
 
-/** How many builds the Builds page lists at once (the newest; the others are found by name). */
+/** How many builds (or shortfall lists) a page lists at once (the newest; the others are found by name or status). */
 export const BUILD_LIST_PAGE_SIZE = 100;
 
 /** The build and shortfall routes of the API (api.md "Builds and shortfall lists"). */
@@ -52,9 +52,12 @@ export class BuildClient {
     return this.http.patch<BuildResponse>(`/api/builds/${encodeURIComponent(id)}`, { status });
   }
 
-  /** Every shortfall list, newest change first (`GET /api/shortfall`). */
-  listShortfallLists(pageSize = 100): Observable<ShortfallListsResponse> {
-    return this.http.get<ShortfallListsResponse>('/api/shortfall', { params: new HttpParams().set('pageSize', pageSize) });
+  /** The shortfall lists changed last, optionally only those of one status or whose build's name holds `search` (`GET /api/shortfall`), with how many there are in all. */
+  listShortfallLists(options: { pageSize?: number; search?: string; status?: ShortfallStatus } = {}): Observable<ShortfallListsResponse> {
+    let params = new HttpParams().set('pageSize', options.pageSize ?? BUILD_LIST_PAGE_SIZE);
+    if (options.search?.trim()) params = params.set('search', options.search.trim());
+    if (options.status) params = params.set('status', options.status);
+    return this.http.get<ShortfallListsResponse>('/api/shortfall', { params });
   }
 
   /** A build's shortfall list (`GET /api/builds/:id/shortfall`). */

@@ -1,9 +1,6 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
-import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { MatInputModule } from '@angular/material/input';
-import { MatSelectModule } from '@angular/material/select';
 import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { ActivatedRoute, Router } from '@angular/router';
@@ -12,7 +9,7 @@ import type { Role } from '../../../shared/api/auth.js';
 import { BUILD_STATUSES, type BuildResponse, type BuildStatus } from '../../../shared/api/builds.js';
 import { apiErrorMessage } from '../api/api-error-message.js';
 import { AuthSession } from '../auth/auth-session.js';
-import { settledText } from '../layout/settled-text.js';
+import { ListFilters, listFilterState } from '../layout/list-filters.js';
 import { fetchedSignal } from '../stock/fetched-signal.js';
 import { BuildClient } from './build-client.js';
 import { BUILD_PLANNING_ROLES, BuildDetail } from './build-detail.js';
@@ -25,7 +22,7 @@ import { BUILD_STATUS_WORDS } from './build-words.js';
   templateUrl: './builds-page.html',
   styleUrl: './builds-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatFormFieldModule, MatIconModule, MatInputModule, MatListModule, MatSelectModule, MatProgressBarModule, BuildDetail, BuildPlanForm],
+  imports: [ListFilters, MatIconModule, MatListModule, MatProgressBarModule, BuildDetail, BuildPlanForm],
 })
 export class BuildsPage {
   private readonly builds = inject(BuildClient);
@@ -37,14 +34,12 @@ export class BuildsPage {
   protected readonly mayPlan = computed(() => BUILD_PLANNING_ROLES.includes(this.session.currentUser()?.role as Role));
   /** Bumped after every change, so the list fetches again. */
   private readonly revision = signal(0);
-  /** The list's filters: part of the name (sent after a pause in typing) and a status ('' for any). */
-  protected readonly searchText = signal('');
-  private readonly search = settledText(this.searchText);
-  protected readonly status = signal<BuildStatus | ''>('');
+  /** The list's filters: part of the name and a status. */
+  protected readonly filters = listFilterState<BuildStatus>();
   protected readonly statuses = BUILD_STATUSES;
-  protected readonly filtered = computed(() => this.search().trim() !== '' || this.status() !== '');
+  protected readonly statusWord = (status: BuildStatus) => BUILD_STATUS_WORDS[status];
   protected readonly list = fetchedSignal(
-    () => ({ revision: this.revision(), search: this.search(), status: this.status() }),
+    () => ({ revision: this.revision(), search: this.filters.search(), status: this.filters.status() }),
     ({ search, status }) => this.builds.listBuilds({ search, status: status || undefined }),
   );
   protected readonly selectedId = signal<number | null>(null);

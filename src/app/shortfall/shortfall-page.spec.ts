@@ -2,6 +2,9 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
 
 import type { ShortfallListSummary } from '../../../shared/api/builds.js';
 import { demoUser, storeSession } from '../testing/signed-in-user.js';
@@ -59,6 +62,27 @@ describe('ShortfallPage', () => {
     fixture.detectChanges();
     await fixture.whenStable();
     expect(fixture.nativeElement.querySelector('[data-testid="shortfall-detail-name"]')?.textContent).toContain('NODE-868 rev C');
+    backend.verify();
+  });
+
+  it('finds lists by build name and status, and says when it shows only those changed last', async () => {
+    const el: HTMLElement = fixture.nativeElement;
+    expect(el.querySelector('[data-testid="shortfall-more"]')).toBeNull();
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    await (await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="shortfall-search"]' }))).setValue('node');
+    const found = await vi.waitFor(() => backend.expectOne((req) => req.url === '/api/shortfall' && req.params.get('search') === 'node'));
+    found.flush({ items: [SUMMARY], total: 130 });
+    await fixture.whenStable();
+    expect(el.querySelector('[data-testid="shortfall-more"]')?.textContent).toContain('The 1 changed last of 130; find the others by build name or status.');
+
+    const status = await loader.getHarness(MatSelectHarness.with({ selector: '[data-testid="shortfall-status-filter"]' }));
+    await status.open();
+    await status.clickOptions({ text: 'Ordered' });
+    const ordered = backend.expectOne((req) => req.url === '/api/shortfall' && req.params.get('status') === 'ordered');
+    expect(ordered.request.params.get('search')).toBe('node');
+    ordered.flush({ items: [], total: 0 });
+    await fixture.whenStable();
+    expect(el.querySelector('[data-testid="shortfall-none"]')?.textContent).toContain('No shortfall list matches these filters.');
     backend.verify();
   });
 });

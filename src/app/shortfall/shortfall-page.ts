@@ -5,10 +5,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router } from '@angular/router';
 
-import type { ShortfallListResponse } from '../../../shared/api/builds.js';
+import { SHORTFALL_STATUSES, type ShortfallListResponse, type ShortfallStatus } from '../../../shared/api/builds.js';
 import { apiErrorMessage } from '../api/api-error-message.js';
 import { BuildClient } from '../builds/build-client.js';
 import { buildStatusWord, shortfallStatusWord } from '../builds/build-words.js';
+import { ListFilters, listFilterState } from '../layout/list-filters.js';
 import { fetchedSignal } from '../stock/fetched-signal.js';
 import { ShortfallDetail } from './shortfall-detail.js';
 
@@ -18,7 +19,7 @@ import { ShortfallDetail } from './shortfall-detail.js';
   templateUrl: './shortfall-page.html',
   styleUrl: './shortfall-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatIconModule, MatProgressBarModule, MatTableModule, ShortfallDetail],
+  imports: [ListFilters, MatIconModule, MatProgressBarModule, MatTableModule, ShortfallDetail],
 })
 export class ShortfallPage {
   private readonly client = inject(BuildClient);
@@ -27,7 +28,13 @@ export class ShortfallPage {
 
   /** Bumped after every change, so the overview fetches again. */
   private readonly revision = signal(0);
-  protected readonly lists = fetchedSignal(() => this.revision(), () => this.client.listShortfallLists());
+  /** The overview's filters: part of the build's name and a status. */
+  protected readonly filters = listFilterState<ShortfallStatus>();
+  protected readonly statuses = SHORTFALL_STATUSES;
+  protected readonly lists = fetchedSignal(
+    () => ({ revision: this.revision(), search: this.filters.search(), status: this.filters.status() }),
+    ({ search, status }) => this.client.listShortfallLists({ search, status: status || undefined }),
+  );
   protected readonly selectedBuildId = signal<number | null>(null);
   protected readonly selected = signal<ShortfallListResponse | null>(null);
   protected readonly detailError = signal<string | null>(null);
